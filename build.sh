@@ -1,0 +1,52 @@
+#!/usr/bin/env bash
+# StringModes set-up and entry point.
+#   bash build.sh demo   build, then analyse the bundled demo clip into ./demo-output
+#   bash build.sh test   build, then run the whole test suite
+# Installs the Debian packages the native runtimes need when run as root; otherwise names them.
+set -euo pipefail
+cd "$(dirname "$0")"
+
+# libgtk-3-0: OpenCvSharp's Linux runtime links against it. fonts-dejavu-core: figure text.
+# ffmpeg: the tests encode H.264/HEVC fixtures with it. chromium: the report is tested in a real browser.
+runtime_packages=(libgtk-3-0 fonts-dejavu-core)
+test_packages=(ffmpeg chromium)
+
+ensure_packages() {
+  local missing=()
+  for p in "$@"; do
+    dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
+  done
+  [ ${#missing[@]} -eq 0 ] && return 0
+  if [ "$(id -u)" -eq 0 ] && command -v apt-get >/dev/null; then
+    echo "build.sh: installing Debian packages: ${missing[*]}" >&2
+    export DEBIAN_FRONTEND=noninteractive
+    apt-get update -qq >/dev/null
+    apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null
+  else
+    echo "build.sh: missing system packages: ${missing[*]}; install them with: sudo apt-get install ${missing[*]}" >&2
+    exit 1
+  fi
+}
+
+command -v dotnet >/dev/null || { echo "build.sh: the .NET SDK (dotnet) is not on PATH; install .NET 10 SDK first" >&2; exit 1; }
+export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
+
+case "${1:-}" in
+  demo)
+    ensure_packages "${runtime_packages[@]}"
+    dotnet build src/StringModes.Cli -c Release -v quiet -nologo
+    cli=src/StringModes.Cli/bin/Release/net10.0/stringmodes
+    clip=demo-clips/nylon-bench/nylon-bench.mkv
+    "$cli" analyze "$clip" --rig demo-clips/nylon-bench/rig.json --out demo-output --force
+    echo "Report: $(pwd)/demo-output/report.html"
+    ;;
+  test)
+    ensure_packages "${runtime_packages[@]}" "${test_packages[@]}"
+    dotnet build StringModes.sln -c Release -v quiet -nologo
+    dotnet test StringModes.sln -c Release --no-build -v quiet --logger "console;verbosity=minimal"
+    ;;
+  *)
+    echo "usage: bash build.sh demo | bash build.sh test" >&2
+    exit 2
+    ;;
+esac
