@@ -90,7 +90,7 @@ public static class ClipSynthesiser
             }
             void Row(int frame, double time, int mark, double rowTime, PixelPoint mid, PixelPoint avg, double u, double ua, bool visible)
                 => sb.Append(CultureInfo.InvariantCulture,
-                    $"{frame},{F(time)},{mark},{F(rowTime)},{F(mid.X)},{F(mid.Y)},{F(avg.X)},{F(avg.Y)},{F(u)},{F(ua)},{(visible ? 1 : 0)}\n");
+                    $"{frame},{F(time)},{mark},{F(rowTime)},{P(mid.X)},{P(mid.Y)},{P(avg.X)},{P(avg.Y)},{M(u)},{M(ua)},{(visible ? 1 : 0)}\n");
             Still(0, scene.End0);
             for (var i = 0; i < scene.MarkFractions.Length; i++)
             {
@@ -103,6 +103,11 @@ public static class ClipSynthesiser
     }
 
     private static string F(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+
+    // Positions to 1e-6 px and displacements to 1e-12 m: far below any tracker's resolution, and half the file size of round-trip digits.
+    private static string P(double v) => v.ToString("0.######", CultureInfo.InvariantCulture);
+
+    private static string M(double v) => v.ToString("0.############", CultureInfo.InvariantCulture);
 
     private static void WriteTruthJson(Stream stream, Scene scene, SynthesisOptions options, double containerFps, ClipFormat format, string clipPath, string sceneFileName)
     {
