@@ -89,6 +89,8 @@ public static class ModeFitter
             warnings.Add($"the decay fit stopped at the iteration limit ({options.MaximumIterations}); values may be less accurate than stated");
         if (fit.ColourFactor > 1.0)
             warnings.Add($"fit residuals are not white near the mode frequency; uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
+        else if (fit.ColourFactor < 1.0)
+            warnings.Add($"fit residuals are coloured and weak near the mode frequency; uncertainties were narrowed by a factor {Math.Sqrt(fit.ColourFactor):F2}");
         if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
             warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
 

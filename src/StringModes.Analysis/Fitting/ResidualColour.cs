@@ -5,9 +5,10 @@ namespace StringModes.Analysis.Fitting;
 /// linear functionals of the noise modulated at the mode frequency f, so their variance scales with the noise power
 /// spectral density at f rather than with its mean: the factor is S(f)/σ², estimated by the Blackman–Tukey lag-window
 /// estimate 1 + 2·Σ_k w_k·ρ_k·cos(2πfkΔt) with a Bartlett window of M lags (Priestley, Spectral Analysis and Time
-/// Series, 1981, §6.2.3). For white residuals the factor is 1; it is applied only when it exceeds 1 by more than
+/// Series, 1981, §6.2.3). For white residuals the factor is 1; it is applied only when it differs from 1 by more than
 /// twice its own sampling standard deviation √((2/N)·Σ w_k²), so that white noise keeps the textbook covariance
-/// (and its coverage) while coloured noise or model error widens the reported uncertainty.
+/// (and its coverage) while coloured noise or model error changes it: widened where the residual spectrum is high at
+/// f, narrowed (never below 1/4) where it is low, e.g. low-pass noise and a mode well above its corner.
 /// </summary>
 internal static class ResidualColour
 {
@@ -34,6 +35,7 @@ internal static class ResidualColour
             weightSquares += 2.0 * w * w;
         }
         var threshold = 1.0 + 2.0 * Math.Sqrt(2.0 * weightSquares / n);
-        return spectrum > threshold ? spectrum : 1.0;
+        var margin = threshold - 1.0;
+        return Math.Abs(spectrum - 1.0) > margin ? Math.Max(spectrum, 0.25) : 1.0;
     }
 }
