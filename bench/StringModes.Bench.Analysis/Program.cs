@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using StringModes.Analysis;
 using StringModes.Analysis.Fitting;
 using StringModes.Analysis.Geometry;
 using StringModes.Analysis.Modal;
@@ -9,23 +10,8 @@ using StringModes.Analysis.Uncertainty;
 // Accuracy and speed figures of the modal analysis on synthetic data with known truth (invented scenarios).
 // Usage: dotnet run -c Release -- [trials]   (default 1000 Monte Carlo trials per scenario)
 CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
-if (args.Length > 1 && args[1] == "zscan")
-{
-    for (var seed = 1; seed <= 15; seed++)
-    {
-        var motion = new StringMotion(0.65, Enumerable.Range(1, 6).Select(n => new ModeComponent(n, StringLaw.ModeFrequency(n, 82.4, 2e-4), 0.8 * (1 + 0.3 * (n - 1)), Pluck.TriangularAmplitude(n, 0.2, 2e-3), 0.3 * n)));
-        var pos = Enumerable.Range(1, 7).Select(i => i * 0.65 / 8).ToArray();
-        var tt = Enumerable.Range(0, 3000).Select(k => 0.1 + k / 1000.0).ToArray();
-        var uu = new double[3000, 7]; var ww = new double[3000, 7];
-        var rnd = new Random(seed);
-        for (var fr = 0; fr < 3000; fr++) for (var i = 0; i < 7; i++) { uu[fr, i] = motion.Displacement(pos[i], tt[fr]) + 1e-6 * MonteCarloPropagation_StandardNormal(rnd); ww[fr, i] = 1; }
-        var md = ModalProjector.Project(new StringCoordinates(0.65, pos, tt, uu, ww));
-        var res = ModeFitter.Fit(md, new ModeFitOptions { CrossCheck = false, CheckDecayShape = false });
-        Console.WriteLine(string.Join("  ", res.Modes.Where(m => m.IsUsable).Select(m => $"{m.N}:{(m.FrequencyHz.Value - motion.Modes[m.N - 1].FrequencyHz) / m.FrequencyHz.StandardUncertainty,6:F2}/{(m.DecayRatePerS.Value - motion.Modes[m.N - 1].DecayRatePerS) / m.DecayRatePerS.StandardUncertainty,6:F2} c{m.ResidualColourFactor:F2}")));
-    }
-    return;
-}
 var trials = args.Length > 0 ? int.Parse(args[0], CultureInfo.InvariantCulture) : 1000;
+if (args.Length > 1 && args[1] == "pipeline") { PipelineMonteCarlo(trials); return; }
 
 Console.WriteLine($"Monte Carlo of single-mode fits, {trials} trials per row (k = 1 coverage should be 0.683 ± {Math.Sqrt(0.683 * 0.317 / trials):F3}):");
 Console.WriteLine("scenario                         | f bias/CRLB  SD/CRLB  cover | σ bias/CRLB  SD/CRLB  cover | ms/fit");
@@ -35,6 +21,14 @@ SingleModeMonteCarlo("1000 fps 2 s, 110 Hz, SNR 54 dB", 1000, 2, 110, 1.5, 1e-3,
 SingleModeMonteCarlo("500 fps 4 s, 60 Hz, SNR 14 dB", 500, 4, 60, 0.8, 1e-3, 2e-4, 0, trials);
 SingleModeMonteCarlo("500 fps 4 s, 60 Hz, AR(1) 0.9", 500, 4, 60, 0.8, 1e-3, 2e-5, 0.9, trials);
 SingleModeMonteCarlo("500 fps 4 s, 60 Hz, AR(1) -0.7", 500, 4, 60, 0.8, 1e-3, 2e-5, -0.7, trials);
+
+Console.WriteLine();
+Console.WriteLine($"Matrix-pencil cross-check estimates, {Math.Min(trials, 300)} trials (single channel; SD relative to the exact CRLB):");
+PencilMonteCarlo("500 fps 4 s, 60 Hz, SNR 34 dB", 500, 4, 60, 0.8, 1e-3, 2e-5, Math.Min(trials, 300));
+PencilMonteCarlo("240 fps 3 s, 31.7 Hz, SNR 14 dB", 240, 3, 31.7, 0.9, 1e-3, 2e-4, Math.Min(trials, 300));
+
+Console.WriteLine();
+PipelineMonteCarlo(Math.Min(trials, 200));
 
 Console.WriteLine();
 Console.WriteLine("Whole-string scenarios (projection + fits + pencil cross-check), one run each:");
@@ -77,6 +71,63 @@ static void SingleModeMonteCarlo(string name, double fps, double duration, doubl
     Console.WriteLine($"{name,-32} | {bf / crlb.FrequencyHz,10:F3} {sf / crlb.FrequencyHz,8:F3} {coverF / (double)usable,6:F3} | {bs / crlb.DecayRatePerS,10:F3} {ss / crlb.DecayRatePerS,8:F3} {coverS / (double)usable,6:F3} | {ms,6:F2}{note}  usable {usable}/{trials}");
 }
 
+// Projection + fits on a whole string, repeated with fresh mark noise: per-mode RMS error against the exact CRLB of
+// the modal-coordinate noise (mark noise · sqrt(2/(N+1)) for N equally spaced marks, DST-I) and k = 1 coverage.
+static void PipelineMonteCarlo(int trials)
+{
+    const double length = 0.65, f0 = 82.4, b = 2e-4, noise = 1e-6, fps = 1000, duration = 2;
+    const int marks = 7;
+    var motion = new StringMotion(length, Enumerable.Range(1, 4).Select(n => new ModeComponent(n, StringLaw.ModeFrequency(n, f0, b), 0.8 * (1 + 0.3 * (n - 1)), Pluck.TriangularAmplitude(n, 0.2, 2e-3), 0.3 * n)));
+    var positions = Enumerable.Range(1, marks).Select(i => i * length / (marks + 1)).ToArray();
+    var frames = (int)(fps * duration);
+    var times = Enumerable.Range(0, frames).Select(k => k / fps).ToArray();
+    var clean = new double[frames, marks];
+    for (var fr = 0; fr < frames; fr++) for (var i = 0; i < marks; i++) clean[fr, i] = motion.Displacement(positions[i], times[fr]);
+    var modalNoise = noise * Math.Sqrt(2.0 / (marks + 1));
+    var bounds = motion.Modes.Select(m => CramerRaoBound.DampedSinusoid(times, m.FrequencyHz, m.DecayRatePerS, m.AmplitudeM, m.PhaseRad, modalNoise)).ToArray();
+    var ef = new double[4]; var es = new double[4]; var cf = new int[4]; var cs = new int[4];
+    var random = new Random(4242);
+    var options = new ModalAnalysisOptions { Fitting = new ModeFitOptions { CrossCheck = false, CheckDecayShape = false } };
+    for (var k = 0; k < trials; k++)
+    {
+        var u = new double[frames, marks]; var w = new double[frames, marks];
+        for (var fr = 0; fr < frames; fr++) for (var i = 0; i < marks; i++) { u[fr, i] = clean[fr, i] + noise * MonteCarloPropagation_StandardNormal(random); w[fr, i] = 1; }
+        var result = ModalAnalysis.Run(new StringCoordinates(length, positions, times, u, w), options);
+        for (var j = 0; j < 4; j++)
+        {
+            var fit = result.Fits.Modes[j]; var truth = motion.Modes[j];
+            var df = fit.FrequencyHz.Value - truth.FrequencyHz; var ds = fit.DecayRatePerS.Value - truth.DecayRatePerS;
+            ef[j] += df * df; es[j] += ds * ds;
+            if (Math.Abs(df) <= fit.FrequencyHz.StandardUncertainty) cf[j]++;
+            if (Math.Abs(ds) <= fit.DecayRatePerS.StandardUncertainty) cs[j]++;
+        }
+    }
+    Console.WriteLine($"Pipeline Monte Carlo ({trials} trials): 0.65 m, 82.4 Hz, B 2e-4, 7 marks, 1000 fps, 2 s, mark noise 1 um");
+    for (var j = 0; j < 4; j++)
+        Console.WriteLine($"  mode {j + 1}: f RMS/CRLB {Math.Sqrt(ef[j] / trials) / bounds[j].FrequencyHz:F2} cover {cf[j] / (double)trials:F3} | σ RMS/CRLB {Math.Sqrt(es[j] / trials) / bounds[j].DecayRatePerS:F2} cover {cs[j] / (double)trials:F3}");
+}
+
+static void PencilMonteCarlo(string name, double fps, double duration, double f, double sigma, double amp, double noise, int trials)
+{
+    var times = Enumerable.Range(0, (int)(fps * duration)).Select(i => i / fps).ToArray();
+    var crlb = CramerRaoBound.DampedSinusoid(times, f, sigma, amp, 0.7, noise);
+    var random = new Random(777);
+    var ef = new List<double>(); var es = new List<double>(); var uf = new List<double>(); var agree = 0;
+    for (var k = 0; k < trials; k++)
+    {
+        var a = new double[times.Length, 1];
+        for (var i = 0; i < times.Length; i++) a[i, 0] = amp * Math.Exp(-sigma * times[i]) * Math.Cos(2 * Math.PI * f * times[i] + 0.7) + noise * MonteCarloPropagation_StandardNormal(random);
+        var modal = new ModalCoordinates(times, a, Enumerable.Repeat(true, times.Length).ToArray(), [1], 1, 0, []);
+        var fit = ModeFitter.Fit(modal, new ModeFitOptions { CheckDecayShape = false, Seed = k });
+        if (fit.CrossChecks.Count == 0) continue;
+        var c = fit.CrossChecks[0];
+        ef.Add(c.FrequencyHz.Value - f); es.Add(c.DecayRatePerS.Value - sigma); uf.Add(c.FrequencyHz.StandardUncertainty);
+        if (c.Agrees) agree++;
+    }
+    static double Rms(List<double> v) => Math.Sqrt(v.Sum(x => x * x) / v.Count);
+    Console.WriteLine($"{name,-32} | f RMS/CRLB {Rms(ef) / crlb.FrequencyHz,6:F2}  σ RMS/CRLB {Rms(es) / crlb.DecayRatePerS,6:F2}  bootstrap u(f)/RMS {uf.Average() / Rms(ef),5:F2}  agreement flagged OK in {agree}/{ef.Count}");
+}
+
 static void StringScenario(string name, double lengthM, double f0, double b, int modes, double peak, double pluck, double sigma1, int marks, double fps, double duration, double noise)
 {
     var motion = new StringMotion(lengthM, Enumerable.Range(1, modes).Select(n => new ModeComponent(n, StringLaw.ModeFrequency(n, f0, b), sigma1 * (1 + 0.3 * (n - 1)), Pluck.TriangularAmplitude(n, pluck, peak), 0.3 * n)));
@@ -87,12 +138,18 @@ static void StringScenario(string name, double lengthM, double f0, double b, int
     var random = new Random(99);
     for (var fr = 0; fr < frames; fr++)
         for (var i = 0; i < marks; i++) { u[fr, i] = motion.Displacement(positions[i], times[fr]) + noise * MonteCarloPropagation_StandardNormal(random); w[fr, i] = 1; }
+    var mu = 1e-3;
     var watch = Stopwatch.StartNew();
-    var modal = ModalProjector.Project(new StringCoordinates(lengthM, positions, times, u, w));
-    var projectMs = watch.Elapsed.TotalMilliseconds;
-    var result = ModeFitter.Fit(modal);
+    var analysis = ModalAnalysis.Run(new StringCoordinates(lengthM, positions, times, u, w), new ModalAnalysisOptions { LengthM = Measured.Exact(lengthM), LinearDensityKgPerM = Measured.Exact(mu) });
     var totalMs = watch.Elapsed.TotalMilliseconds;
-    Console.WriteLine($"{name}  (projection {projectMs:F0} ms, total {totalMs:F0} ms, condition {modal.ConditionNumber:F2})");
+    var modal = analysis.Modal;
+    var result = analysis.Fits;
+    Console.WriteLine($"{name}  (ModalAnalysis.Run {totalMs:F0} ms, {frames} frames, condition {modal.ConditionNumber:F2})");
+    if (analysis.String is { } est)
+    {
+        var trueT = StringLaw.Tension(mu, lengthM, f0);
+        Console.WriteLine($"  f0 rel err {est.FundamentalHz.Value / f0 - 1:E2} (u_rel {est.FundamentalHz.RelativeUncertainty:E2}), B {est.Inharmonicity.Value:E4} (true {b:E4}, u {est.Inharmonicity.StandardUncertainty:E1}{(est.InharmonicityAssumed ? ", assumed" : "")}), tension rel err {est.TensionN?.Value / trueT - 1:E2}, f2/f1 check {(est.SecondHarmonic is null ? "not possible" : est.SecondHarmonic.Passes ? "passes" : "flags")} ({est.SecondHarmonic?.DeviationInUncertainties:F1} u)");
+    }
     Console.WriteLine("  n  amp/max   f rel err     (f err)/u   σ rel err   (σ err)/u  pencil f z  pencil σ z  status");
     var largest = motion.Modes.Max(m => Math.Abs(m.AmplitudeM));
     foreach (var truth in motion.Modes)
@@ -103,7 +160,7 @@ static void StringScenario(string name, double lengthM, double f0, double b, int
         var ef = fit.FrequencyHz.Value - truth.FrequencyHz; var es = fit.DecayRatePerS.Value - truth.DecayRatePerS;
         Console.WriteLine($"  {truth.N}  {Math.Abs(truth.AmplitudeM) / largest,6:F3}  {ef / truth.FrequencyHz,11:E2}  {ef / fit.FrequencyHz.StandardUncertainty,9:F2}  {es / truth.DecayRatePerS,10:E2}  {es / fit.DecayRatePerS.StandardUncertainty,9:F2}  {check?.FrequencyDifference,10:F2}  {check?.DecayRateDifference,10:F2}  {fit.Status}");
     }
-    foreach (var warning in modal.Warnings.Concat(result.Warnings)) Console.WriteLine($"  warning: {warning}");
+    foreach (var warning in analysis.Warnings) Console.WriteLine($"  warning: {warning}");
 }
 
 static double MonteCarloPropagation_StandardNormal(Random random)

@@ -5,9 +5,11 @@ namespace StringModes.Analysis.StringModel;
 /// <summary>How the string's linear density μ is known. Create with one of the factory methods.</summary>
 public sealed record LinearDensityInput
 {
-    private LinearDensityInput(string kind, Measured first, Measured second) { Kind = kind; First = first; Second = second; }
+    internal enum Source { Direct, Sample, DensityAndDiameter }
 
-    internal string Kind { get; }
+    private LinearDensityInput(Source kind, Measured first, Measured second) { Kind = kind; First = first; Second = second; }
+
+    internal Source Kind { get; }
     internal Measured First { get; }
     internal Measured Second { get; }
 
@@ -19,21 +21,21 @@ public sealed record LinearDensityInput
     public Measured? UnstretchedLengthM { get; init; }
 
     /// <summary>μ given directly, kg/m.</summary>
-    public static LinearDensityInput Direct(Measured linearDensityKgPerM) => new("direct", linearDensityKgPerM, default);
+    public static LinearDensityInput Direct(Measured linearDensityKgPerM) => new(Source.Direct, linearDensityKgPerM, default);
 
     /// <summary>μ = m/ℓ from a weighed sample: mass in kg, sample length in m.</summary>
-    public static LinearDensityInput FromSample(Measured massKg, Measured sampleLengthM) => new("sample", massKg, sampleLengthM);
+    public static LinearDensityInput FromSample(Measured massKg, Measured sampleLengthM) => new(Source.Sample, massKg, sampleLengthM);
 
     /// <summary>μ = ρ·π·d²/4 for a solid round cord: density in kg/m³, diameter in m.</summary>
-    public static LinearDensityInput FromDensityAndDiameter(Measured densityKgPerM3, Measured diameterM) => new("density", densityKgPerM3, diameterM);
+    public static LinearDensityInput FromDensityAndDiameter(Measured densityKgPerM3, Measured diameterM) => new(Source.DensityAndDiameter, densityKgPerM3, diameterM);
 
     /// <summary>Base inputs (name, value) with their uncertainties, in the order <see cref="Evaluate"/> consumes them.</summary>
     internal IReadOnlyList<(string Name, Measured Value)> Inputs()
     {
         var list = Kind switch
         {
-            "direct" => new List<(string, Measured)> { ("linear density", First) },
-            "sample" => [("sample mass", First), ("sample length", Second)],
+            Source.Direct => new List<(string, Measured)> { ("linear density", First) },
+            Source.Sample => [("sample mass", First), ("sample length", Second)],
             _ => [("material density", First), ("diameter", Second)],
         };
         if (UnstretchedLengthM is { } l0) list.Add(("unstretched length", l0));
@@ -45,10 +47,10 @@ public sealed record LinearDensityInput
     {
         var mu = Kind switch
         {
-            "direct" => x[0],
-            "sample" => x[0] / x[1],
+            Source.Direct => x[0],
+            Source.Sample => x[0] / x[1],
             _ => x[0] * Math.PI * x[1] * x[1] / 4.0,
         };
-        return UnstretchedLengthM is null ? mu : mu * x[Kind == "direct" ? 1 : 2] / lengthM;
+        return UnstretchedLengthM is null ? mu : mu * x[Kind == Source.Direct ? 1 : 2] / lengthM;
     }
 }
