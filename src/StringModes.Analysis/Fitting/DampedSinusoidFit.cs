@@ -1,0 +1,167 @@
+using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.Optimization;
+
+namespace StringModes.Analysis.Fitting;
+
+/// <summary>
+/// Result of fitting y(t) = A·e^(−σt)·cos(2πft + φ) + c. Covariance rows/columns: f, σ, A, φ (A and φ at t = 0).
+/// </summary>
+internal sealed record SinusoidFit(
+    FitStatus Status,
+    double FrequencyHz,
+    double DecayRatePerS,
+    double AmplitudeM,
+    double PhaseRad,
+    double OffsetM,
+    double[,] Covariance,
+    double ResidualRmsM,
+    double ColourFactor,
+    int Iterations)
+{
+    public double FrequencyUncertainty => Math.Sqrt(Covariance[0, 0]);
+    public double DecayRateUncertainty => Math.Sqrt(Covariance[1, 1]);
+    public bool Usable => Status is FitStatus.Converged or FitStatus.IterationLimit;
+
+    public static SinusoidFit Failed(FitStatus status) => new(status, 0, 0, 0, 0, 0, new double[4, 4], 0, 1, 0);
+}
+
+/// <summary>
+/// Levenberg–Marquardt fit of one decaying sinusoid plus offset (Levenberg 1944, Q. Appl. Math. 2:164; Marquardt 1963,
+/// SIAM J. Appl. Math. 11:431) with Math.NET's minimiser and an analytic Jacobian, on arbitrary (possibly non-uniform)
+/// sample times. Internally the model is linear in its amplitudes, e^(−στ)·(a·cos 2πfτ + b·sin 2πfτ) + c, with τ
+/// measured from the middle of the record and scaled to [−1, 1] so that every parameter is of order one; this keeps
+/// the problem well conditioned and the A–φ pair free of wrap-around.
+/// The covariance is s²·(JᵀJ)⁻¹ with s² = RSS/(n − 5), computed here from the Jacobian at the solution, then
+/// multiplied by a residual-colour factor (see <see cref="ResidualColour"/>) when the residuals are significantly
+/// non-white near the mode frequency.
+/// </summary>
+internal static class DampedSinusoidFit
+{
+    private const int ParameterCount = 5;
+
+    /// <param name="timesS">Sample times, increasing.</param>
+    /// <param name="values">Samples.</param>
+    /// <param name="seedFrequencyHz">Starting frequency (from <see cref="SpectralPeak"/>).</param>
+    /// <param name="seedDecayRatePerS">Starting decay rate.</param>
+    /// <param name="maximumIterations">Iteration limit of the minimiser.</param>
+    /// <param name="correctForColouredResiduals">Whether to apply the residual-colour factor.</param>
+    public static SinusoidFit Fit(double[] timesS, double[] values, double seedFrequencyHz, double seedDecayRatePerS,
+        int maximumIterations, bool correctForColouredResiduals)
+    {
+        var n = timesS.Length;
+        if (n < 2 * ParameterCount) return SinusoidFit.Failed(FitStatus.TooShort);
+        var centre = 0.5 * (timesS[0] + timesS[^1]);
+        var halfSpan = 0.5 * (timesS[^1] - timesS[0]);
+        if (!(halfSpan > 0)) return SinusoidFit.Failed(FitStatus.TooShort);
+        var scale = 0.0;
+        foreach (var v in values) scale = Math.Max(scale, Math.Abs(v));
+        if (!(scale > 0)) return SinusoidFit.Failed(FitStatus.NoSignal);
+
+        var x = Vector<double>.Build.Dense(n, i => (timesS[i] - centre) / halfSpan);
+        var y = Vector<double>.Build.Dense(n, i => values[i] / scale);
+        var nu0 = seedFrequencyHz * halfSpan; // cycles per half record
+
+        // Parameters p = (Δν, s, a, b, c): frequency ν0 + Δν in cycles per half record, decay s = σ·halfSpan.
+        Vector<double> Model(Vector<double> p, Vector<double> xs)
+        {
+            var result = Vector<double>.Build.Dense(xs.Count);
+            var w = 2.0 * Math.PI * (nu0 + p[0]);
+            for (var i = 0; i < xs.Count; i++)
+            {
+                var e = Math.Exp(-p[1] * xs[i]);
+                result[i] = e * (p[2] * Math.Cos(w * xs[i]) + p[3] * Math.Sin(w * xs[i])) + p[4];
+            }
+            return result;
+        }
+
+        Matrix<double> Jacobian(Vector<double> p, Vector<double> xs)
+        {
+            var jac = Matrix<double>.Build.Dense(xs.Count, ParameterCount);
+            var w = 2.0 * Math.PI * (nu0 + p[0]);
+            for (var i = 0; i < xs.Count; i++)
+            {
+                var xi = xs[i];
+                var e = Math.Exp(-p[1] * xi);
+                var c = Math.Cos(w * xi);
+                var s = Math.Sin(w * xi);
+                jac[i, 0] = e * (-p[2] * s + p[3] * c) * 2.0 * Math.PI * xi;
+                jac[i, 1] = -xi * e * (p[2] * c + p[3] * s);
+                jac[i, 2] = e * c;
+                jac[i, 3] = e * s;
+                jac[i, 4] = 1;
+            }
+            return jac;
+        }
+
+        // Amplitudes of the seed by linear least squares at the seed frequency and decay.
+        var s0 = seedDecayRatePerS * halfSpan;
+        var basis = Matrix<double>.Build.Dense(n, 3, (i, k) =>
+        {
+            var e = Math.Exp(-s0 * x[i]);
+            return k switch { 0 => e * Math.Cos(2 * Math.PI * nu0 * x[i]), 1 => e * Math.Sin(2 * Math.PI * nu0 * x[i]), _ => 1.0 };
+        });
+        var qr = basis.QR();
+        if (!qr.IsFullRank) return SinusoidFit.Failed(FitStatus.Singular);
+        var lin = qr.Solve(y);
+        var start = Vector<double>.Build.DenseOfArray([0.0, s0, lin[0], lin[1], lin[2]]);
+
+        var objective = ObjectiveFunction.NonlinearModel(Model, Jacobian, x, y);
+        var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-14, stepTolerance: 1e-13,
+            functionTolerance: 1e-15, maximumIterations: maximumIterations);
+        NonlinearMinimizationResult result;
+        try
+        {
+            result = minimizer.FindMinimum(objective, start);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            // Math.NET signals a non-finite model evaluation this way; for a fit that is an ordinary failure.
+            return SinusoidFit.Failed(FitStatus.Singular);
+        }
+        if (result.ReasonForExit == ExitCondition.InvalidValues) return SinusoidFit.Failed(FitStatus.Singular);
+        var status = result.ReasonForExit == ExitCondition.ExceedIterations ? FitStatus.IterationLimit : FitStatus.Converged;
+        var p = result.MinimizingPoint;
+        if (p.Any(v => !double.IsFinite(v))) return SinusoidFit.Failed(FitStatus.Singular);
+
+        var jac = Jacobian(p, x);
+        var residual = y - Model(p, x);
+        var rss = residual.DotProduct(residual);
+        var normal = jac.TransposeThisAndMultiply(jac);
+        var eig = normal.Evd().EigenValues.Real();
+        if (!(eig.Minimum() > eig.Maximum() * 1e-14)) return SinusoidFit.Failed(FitStatus.Singular);
+        var f = (nu0 + p[0]) / halfSpan;
+        // Residuals at rounding level (noise-free data) carry no statistical information about colour.
+        var colour = correctForColouredResiduals && rss > 1e-20 * n ? ResidualColour.VarianceFactor(residual.AsArray() ?? residual.ToArray(), f * (timesS[^1] - timesS[0]) / (n - 1)) : 1.0;
+        var covScaled = normal.Inverse() * (rss / (n - ParameterCount) * colour);
+
+        // Physical parameters (f, σ, A(0), φ(0)) and the Jacobian of that map for the covariance.
+        var sigma = p[1] / halfSpan;
+        var a = p[2];
+        var b = p[3];
+        var ampCentre = Math.Sqrt(a * a + b * b);
+        if (!(ampCentre > 0)) return SinusoidFit.Failed(FitStatus.Singular);
+        var growth = Math.Exp(sigma * centre);
+        var amplitude = ampCentre * growth * scale;
+        var phaseCentre = Math.Atan2(-b, a);
+        var phase = WrapPhase(phaseCentre - 2.0 * Math.PI * f * centre);
+        var map = Matrix<double>.Build.Dense(4, ParameterCount);
+        map[0, 0] = 1.0 / halfSpan;
+        map[1, 1] = 1.0 / halfSpan;
+        map[2, 1] = amplitude * centre / halfSpan;
+        map[2, 2] = a / ampCentre * growth * scale;
+        map[2, 3] = b / ampCentre * growth * scale;
+        map[3, 0] = -2.0 * Math.PI * centre / halfSpan;
+        map[3, 2] = b / (ampCentre * ampCentre);
+        map[3, 3] = -a / (ampCentre * ampCentre);
+        var cov = (map * covScaled * map.Transpose()).ToArray();
+        if (cov.Cast<double>().Any(v => !double.IsFinite(v))) return SinusoidFit.Failed(FitStatus.Singular);
+        return new SinusoidFit(status, f, sigma, amplitude, phase, p[4] * scale, cov, Math.Sqrt(rss / n) * scale, colour, result.Iterations);
+    }
+
+    /// <summary>Phase wrapped to (−π, π].</summary>
+    public static double WrapPhase(double phaseRad)
+    {
+        var w = Math.IEEERemainder(phaseRad, 2.0 * Math.PI);
+        return w <= -Math.PI ? w + 2.0 * Math.PI : w;
+    }
+}

@@ -1,0 +1,367 @@
+using System.Numerics;
+using MathNet.Numerics.Distributions;
+using StringModes.Analysis.Modal;
+using StringModes.Analysis.Physics;
+using StringModes.Analysis.Uncertainty;
+
+namespace StringModes.Analysis.Fitting;
+
+/// <summary>
+/// Fits every modal coordinate with a decaying sinusoid: a frequency seed from the interpolated peak of a Hann-windowed,
+/// zero-padded spectrum, a decay seed from the log-envelope of short segments, then Levenberg–Marquardt on all
+/// parameters at the true (possibly non-uniform) sample times. Derived damping measures use <see cref="Damping"/> with
+/// first-order propagation of the (f, σ) covariance. Consistency checks — split-window decay rates and frequencies,
+/// and an independent multi-channel matrix pencil — add warnings; they never change the reported values.
+/// </summary>
+public static class ModeFitter
+{
+    /// <summary>Fits all modes of <paramref name="modal"/>. Never throws for bad data; failures are statuses and warnings.</summary>
+    public static ModeFitResult Fit(ModalCoordinates modal, ModeFitOptions? options = null)
+    {
+        options ??= new ModeFitOptions();
+        var fits = new List<ModeFit>(modal.ModeCount);
+        var internals = new List<SinusoidFit?>(modal.ModeCount);
+        var warnings = new List<string>();
+        for (var j = 0; j < modal.ModeCount; j++)
+        {
+            var (times, values) = modal.ValidSeries(j);
+            var (fit, raw) = FitSeriesCore(modal.ModeNumbers[j], times, values, options);
+            fits.Add(fit);
+            internals.Add(raw);
+            warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
+        }
+
+        var checks = new List<CrossCheck>();
+        if (options.CrossCheck && fits.Any(f => f.IsUsable))
+        {
+            var note = RunCrossCheck(modal, fits, internals, options, checks);
+            if (note is not null) warnings.Add(note);
+            foreach (var c in checks.Where(c => !c.Agrees))
+                warnings.Add($"mode {c.N}: the independent matrix-pencil estimate differs from the fit by {c.FrequencyDifference:F1} (frequency) and {c.DecayRateDifference:F1} (decay rate) combined standard uncertainties; the single-sinusoid model may not describe this mode");
+        }
+        return new ModeFitResult(fits, checks, warnings);
+    }
+
+    /// <summary>Fits one series a(t) as mode <paramref name="n"/>. Times must be increasing; values finite.</summary>
+    public static ModeFit FitSeries(int n, double[] timesS, double[] valuesM, ModeFitOptions? options = null)
+        => FitSeriesCore(n, timesS, valuesM, options ?? new ModeFitOptions()).Fit;
+
+    private static (ModeFit Fit, SinusoidFit? Raw) FitSeriesCore(int n, double[] times, double[] values, ModeFitOptions options)
+    {
+        var warnings = new List<string>();
+        if (times.Length < 10)
+        {
+            warnings.Add($"only {times.Length} valid samples; at least 10 are needed to fit frequency and decay");
+            return (ModeFit.Unfitted(n, FitStatus.TooShort, warnings), null);
+        }
+        if (values.Any(v => !double.IsFinite(v)) || times.Any(t => !double.IsFinite(t)))
+        {
+            warnings.Add("the series contains non-finite values");
+            return (ModeFit.Unfitted(n, FitStatus.Singular, warnings), null);
+        }
+        var duration = times[^1] - times[0];
+        var (uniform, rate) = ResampleUniform(times, values);
+        var peak = SpectralPeak.Strongest(uniform, rate, 1.0 / duration);
+        if (peak.PeakToMedianPower < options.DetectionThreshold)
+        {
+            warnings.Add($"no vibration detected: the strongest spectral peak is only {peak.PeakToMedianPower:F1} times the median noise power (threshold {options.DetectionThreshold:G3})");
+            return (ModeFit.Unfitted(n, FitStatus.NoSignal, warnings), null);
+        }
+        var periods = peak.FrequencyHz * duration;
+        if (periods < 1.5)
+        {
+            warnings.Add($"the analysis window ({duration:G3} s) holds only {periods:F1} periods at {peak.FrequencyHz:G4} Hz; frequency and decay cannot be separated");
+            return (ModeFit.Unfitted(n, FitStatus.TooShort, warnings), null);
+        }
+        if (periods < options.MinimumPeriods)
+            warnings.Add($"the analysis window holds only {periods:F1} periods; frequency and decay are poorly determined");
+
+        var decaySeed = EnvelopeDecaySeed(times, values, peak.FrequencyHz, periods);
+        var fit = DampedSinusoidFit.Fit(times, values, peak.FrequencyHz, decaySeed, options.MaximumIterations, options.CorrectForColouredResiduals);
+        if (!fit.Usable)
+        {
+            warnings.Add(fit.Status == FitStatus.Singular
+                ? "the decay fit failed (singular normal matrix or invalid values); no values are reported"
+                : "the decay fit failed; no values are reported");
+            return (ModeFit.Unfitted(n, fit.Status, warnings), null);
+        }
+        if (fit.Status == FitStatus.IterationLimit)
+            warnings.Add($"the decay fit stopped at the iteration limit ({options.MaximumIterations}); values may be less accurate than stated");
+        if (fit.ColourFactor > 1.0)
+            warnings.Add($"fit residuals are not white near the mode frequency; uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
+        else if (fit.ColourFactor < 1.0)
+            warnings.Add($"fit residuals are coloured and weak near the mode frequency; uncertainties were narrowed by a factor {Math.Sqrt(fit.ColourFactor):F2}");
+        if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
+            warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
+
+        if (options.CheckDecayShape) CheckDecayShape(times, values, fit, periods, options, warnings);
+        return (Derive(n, fit, warnings), fit);
+    }
+
+    private static ModeFit Derive(int n, SinusoidFit fit, List<string> warnings)
+    {
+        var cov = new double[2, 2] { { fit.Covariance[0, 0], fit.Covariance[0, 1] }, { fit.Covariance[1, 0], fit.Covariance[1, 1] } };
+        var f = fit.FrequencyHz;
+        var s = fit.DecayRatePerS;
+        var zeta = Propagate((ff, ss) => Damping.DampingRatio(ss, ff), f, s, cov);
+        var decrement = Propagate((ff, ss) => Damping.LogarithmicDecrement(Damping.DampingRatio(ss, ff)), f, s, cov);
+        Measured? q = null, t60 = null;
+        var uSigma = Math.Sqrt(cov[1, 1]);
+        if (s > 2 * uSigma && s > 0)
+        {
+            q = Propagate((ff, ss) => Damping.QualityFactor(Damping.DampingRatio(ss, ff)), f, s, cov);
+            t60 = Propagate((_, ss) => Damping.T60(ss), f, s, cov);
+        }
+        else
+        {
+            warnings.Add(s <= 0
+                ? $"the amplitude does not decay (σ = {s:G3} ± {uSigma:G2} 1/s); Q and T60 are not given"
+                : $"the decay rate is not resolved (σ = {s:G3} ± {uSigma:G2} 1/s); Q and T60 are not given");
+        }
+        return new ModeFit(n,
+            new Measured(f, Math.Sqrt(fit.Covariance[0, 0])),
+            new Measured(s, uSigma),
+            new Measured(fit.AmplitudeM, Math.Sqrt(fit.Covariance[2, 2])),
+            new Measured(fit.PhaseRad, Math.Sqrt(fit.Covariance[3, 3])),
+            zeta, q, t60, decrement, fit.Status, fit.ResidualRmsM, fit.ColourFactor, warnings);
+    }
+
+    /// <summary>First-order propagation through g(f, σ) with central-difference partial derivatives.</summary>
+    private static Measured Propagate(Func<double, double, double> g, double f, double s, double[,] cov)
+    {
+        var value = g(f, s);
+        var hf = 1e-6 * Math.Max(Math.Abs(f), 1e-3);
+        var hs = 1e-6 * Math.Max(Math.Abs(s), 1e-3);
+        var df = (g(f + hf, s) - g(f - hf, s)) / (2 * hf);
+        var ds = (g(f, s + hs) - g(f, s - hs)) / (2 * hs);
+        var variance = df * df * cov[0, 0] + 2 * df * ds * cov[0, 1] + ds * ds * cov[1, 1];
+        var u = Math.Sqrt(Math.Max(variance, 0));
+        return double.IsFinite(value) && double.IsFinite(u) ? new Measured(value, u) : default;
+    }
+
+    /// <summary>Linear interpolation onto the median sample interval, for the spectral seed only.</summary>
+    private static (double[] Samples, double RateHz) ResampleUniform(double[] times, double[] values)
+    {
+        var steps = new double[times.Length - 1];
+        for (var i = 0; i < steps.Length; i++) steps[i] = times[i + 1] - times[i];
+        Array.Sort(steps);
+        var dt = steps[steps.Length / 2];
+        if (steps[0] > dt * (1 - 1e-6) && steps[^1] < dt * (1 + 1e-6)) return (values, 1.0 / dt);
+        var count = (int)Math.Floor((times[^1] - times[0]) / dt) + 1;
+        var samples = new double[count];
+        var k = 0;
+        for (var i = 0; i < count; i++)
+        {
+            var t = times[0] + i * dt;
+            while (k < times.Length - 2 && times[k + 1] < t) k++;
+            var w = (t - times[k]) / (times[k + 1] - times[k]);
+            samples[i] = values[k] + Math.Clamp(w, 0, 1) * (values[k + 1] - values[k]);
+        }
+        return (samples, 1.0 / dt);
+    }
+
+    /// <summary>
+    /// Decay-rate seed: amplitudes of cos/sin at the seed frequency fitted by linear least squares in 2–8 segments,
+    /// then a regression of ln(amplitude) on segment time weighted by amplitude² (larger amplitudes are more reliable).
+    /// </summary>
+    private static double EnvelopeDecaySeed(double[] times, double[] values, double frequencyHz, double periods)
+    {
+        var segments = Math.Clamp((int)(periods / 3), 2, 8);
+        var t0 = times[0];
+        var span = times[^1] - t0;
+        var centres = new List<double>();
+        var logs = new List<double>();
+        var weights = new List<double>();
+        for (var s = 0; s < segments; s++)
+        {
+            var lo = t0 + span * s / segments;
+            var hi = t0 + span * (s + 1) / segments;
+            var idx = Enumerable.Range(0, times.Length).Where(i => times[i] >= lo && (times[i] < hi || s == segments - 1)).ToArray();
+            if (idx.Length < 4) continue;
+            var tc = 0.5 * (lo + hi);
+            var a = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(idx.Length, 3, (r, c) =>
+            {
+                var arg = 2 * Math.PI * frequencyHz * (times[idx[r]] - tc);
+                return c switch { 0 => Math.Cos(arg), 1 => Math.Sin(arg), _ => 1.0 };
+            });
+            var qr = a.QR();
+            if (!qr.IsFullRank) continue;
+            var x = qr.Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.DenseOfEnumerable(idx.Select(i => values[i])));
+            var amp = Math.Sqrt(x[0] * x[0] + x[1] * x[1]);
+            if (!(amp > 0)) continue;
+            centres.Add(tc);
+            logs.Add(Math.Log(amp));
+            weights.Add(amp * amp);
+        }
+        if (centres.Count < 2) return 0;
+        double sw = 0, st = 0, sl = 0;
+        for (var i = 0; i < centres.Count; i++) { sw += weights[i]; st += weights[i] * centres[i]; sl += weights[i] * logs[i]; }
+        double stt = 0, stl = 0;
+        for (var i = 0; i < centres.Count; i++)
+        {
+            var dt = centres[i] - st / sw;
+            stt += weights[i] * dt * dt;
+            stl += weights[i] * dt * (logs[i] - sl / sw);
+        }
+        var sigma = stt > 0 ? -stl / stt : 0;
+        return double.IsFinite(sigma) ? sigma : 0;
+    }
+
+    /// <summary>
+    /// Splits the window into 2 or 4 parts and refits each. Decay rates that disagree beyond the coverage factor
+    /// (χ² test of a common value) mean a non-exponential decay — beating of two close frequencies (the two
+    /// polarisations), or amplitude-dependent damping. A significant slope of frequency against time means an
+    /// amplitude-dependent frequency (tension modulation, REFERENCES.md §10) or beating.
+    /// </summary>
+    private static void CheckDecayShape(double[] times, double[] values, SinusoidFit whole, double periods, ModeFitOptions options, List<string> warnings)
+    {
+        var parts = periods >= 40 && times.Length >= 80 ? 4 : periods >= 12 && times.Length >= 40 ? 2 : 0;
+        if (parts == 0) return;
+        var t0 = times[0];
+        var span = times[^1] - t0;
+        var sub = new List<(double Centre, SinusoidFit Fit)>();
+        for (var p = 0; p < parts; p++)
+        {
+            var lo = t0 + span * p / parts;
+            var hi = t0 + span * (p + 1) / parts;
+            var idx = Enumerable.Range(0, times.Length).Where(i => times[i] >= lo && (times[i] < hi || p == parts - 1)).ToArray();
+            var fit = DampedSinusoidFit.Fit(idx.Select(i => times[i]).ToArray(), idx.Select(i => values[i]).ToArray(),
+                whole.FrequencyHz, whole.DecayRatePerS, options.MaximumIterations, options.CorrectForColouredResiduals);
+            if (!fit.Usable || !(fit.FrequencyUncertainty > 0) || !(fit.DecayRateUncertainty > 0)) return;
+            sub.Add((0.5 * (lo + hi), fit));
+        }
+        // A chi-square with parts−1 degrees of freedom at the probability that the coverage factor gives a Gaussian.
+        var probability = 2 * Normal.CDF(0, 1, options.ConsistencyCoverageFactor) - 1;
+        var critical = ChiSquared.InvCDF(parts - 1, probability);
+
+        double sw = 0, sws = 0;
+        foreach (var (_, fit) in sub) { var w = 1 / (fit.DecayRateUncertainty * fit.DecayRateUncertainty); sw += w; sws += w * fit.DecayRatePerS; }
+        var meanSigma = sws / sw;
+        var chi2 = sub.Sum(s => Math.Pow((s.Fit.DecayRatePerS - meanSigma) / s.Fit.DecayRateUncertainty, 2));
+        if (chi2 > critical)
+            warnings.Add($"the decay is not a single exponential: decay rates in successive parts of the window run {string.Join(", ", sub.Select(s => s.Fit.DecayRatePerS.ToString("G3", System.Globalization.CultureInfo.InvariantCulture)))} 1/s (disagreeing beyond {options.ConsistencyCoverageFactor:G2} standard uncertainties); two close frequencies may be beating, or damping depends on amplitude");
+
+        // Weighted regression of frequency on time.
+        double w0 = 0, wt = 0, wf = 0;
+        foreach (var (c, fit) in sub) { var w = 1 / (fit.FrequencyUncertainty * fit.FrequencyUncertainty); w0 += w; wt += w * c; wf += w * fit.FrequencyHz; }
+        double stt = 0, stf = 0;
+        foreach (var (c, fit) in sub)
+        {
+            var w = 1 / (fit.FrequencyUncertainty * fit.FrequencyUncertainty);
+            stt += w * (c - wt / w0) * (c - wt / w0);
+            stf += w * (c - wt / w0) * (fit.FrequencyHz - wf / w0);
+        }
+        if (stt <= 0) return;
+        var slope = stf / stt;
+        var uSlope = Math.Sqrt(1 / stt);
+        if (Math.Abs(slope) > options.ConsistencyCoverageFactor * uSlope)
+        {
+            var first = sub[0].Fit.FrequencyHz;
+            var last = sub[^1].Fit.FrequencyHz;
+            warnings.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"the frequency drifts from {first:G7} Hz to {last:G7} Hz across the window ({slope:G3} Hz/s, {Math.Abs(slope) / uSlope:F1} standard uncertainties): amplitude-dependent frequency (tension modulation at large amplitude) or beating; the reported frequency is a window average"));
+        }
+    }
+
+    private static string? RunCrossCheck(ModalCoordinates modal, List<ModeFit> fits, List<SinusoidFit?> raw, ModeFitOptions options, List<CrossCheck> checks)
+    {
+        // Longest run of consecutive valid frames: the pencil needs gap-free uniform samples.
+        int bestStart = 0, bestLength = 0;
+        for (var f = 0; f < modal.FrameCount;)
+        {
+            if (!modal.ValidFrame[f]) { f++; continue; }
+            var start = f;
+            while (f < modal.FrameCount && modal.ValidFrame[f]) f++;
+            if (f - start > bestLength) { bestStart = start; bestLength = f - start; }
+        }
+        if (bestLength < 30) return "matrix-pencil cross-check skipped: fewer than 30 consecutive valid frames";
+        var times = modal.TimesS[bestStart..(bestStart + bestLength)];
+        var dt = (times[^1] - times[0]) / (bestLength - 1);
+        for (var i = 1; i < bestLength; i++)
+            if (Math.Abs(times[i] - times[i - 1] - dt) > 1e-3 * dt)
+                return "matrix-pencil cross-check skipped: the frame times are not uniform";
+
+        var used = Enumerable.Range(0, fits.Count).Where(j => fits[j].IsUsable && raw[j] is not null).ToArray();
+        var order = 2 * used.Length + 1;
+        var pencil = Math.Clamp(bestLength / 3, order + 1, 120);
+        if (pencil >= bestLength - order) return "matrix-pencil cross-check skipped: too few frames for the number of modes";
+
+        double[][] Channels(Func<int, int, double> sample)
+            => used.Select(j =>
+            {
+                var c = new double[bestLength];
+                for (var i = 0; i < bestLength; i++) c[i] = sample(j, i);
+                var rms = Math.Sqrt(c.Sum(v => v * v) / c.Length);
+                if (rms > 0) for (var i = 0; i < c.Length; i++) c[i] /= rms;
+                return c;
+            }).ToArray();
+
+        (double F, double S)[]? Estimate(double[][] channels)
+        {
+            Complex[] poles;
+            try { poles = MatrixPencil.Poles(channels, order, pencil); }
+            catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException) { return null; }
+            var taken = new bool[poles.Length];
+            var result = new (double, double)[used.Length];
+            for (var m = 0; m < used.Length; m++)
+            {
+                var target = 2 * Math.PI * fits[used[m]].FrequencyHz.Value * dt;
+                var best = -1;
+                for (var p = 0; p < poles.Length; p++)
+                {
+                    if (taken[p] || poles[p].Phase <= 0 || poles[p].Magnitude <= 0) continue;
+                    if (best < 0 || Math.Abs(poles[p].Phase - target) < Math.Abs(poles[best].Phase - target)) best = p;
+                }
+                if (best < 0) return null;
+                taken[best] = true;
+                result[m] = (poles[best].Phase / (2 * Math.PI * dt), -Math.Log(poles[best].Magnitude) / dt);
+            }
+            return result;
+        }
+
+        var estimate = Estimate(Channels((j, i) => modal.AmplitudeM[bestStart + i, j]));
+        if (estimate is null) return "matrix-pencil cross-check failed: no matching poles were found";
+
+        // Parametric bootstrap: the fitted curves plus white noise at each channel's residual level.
+        var random = new Random(options.Seed);
+        var draws = new List<(double F, double S)[]>();
+        var noise = new double[used.Length][];
+        for (var b = 0; b < Math.Max(4, options.CrossCheckBootstrapDraws); b++)
+        {
+            for (var m = 0; m < used.Length; m++)
+            {
+                noise[m] = new double[bestLength];
+                for (var i = 0; i < bestLength; i++) noise[m][i] = raw[used[m]]!.ResidualRmsM * MonteCarloPropagation.StandardNormal(random);
+            }
+            var d = Estimate(Channels((j, i) =>
+            {
+                var m = Array.IndexOf(used, j);
+                var r = raw[j]!;
+                return StringMotion.ModalCoordinate(new ModeComponent(1, r.FrequencyHz, r.DecayRatePerS, r.AmplitudeM, r.PhaseRad), times[i]) + r.OffsetM + noise[m][i];
+            }));
+            if (d is not null) draws.Add(d);
+        }
+        if (draws.Count < 4) return "matrix-pencil cross-check gave no uncertainty: the bootstrap failed";
+
+        for (var m = 0; m < used.Length; m++)
+        {
+            var fit = fits[used[m]];
+            var uf = StandardDeviation(draws.Select(d => d[m].F));
+            var us = StandardDeviation(draws.Select(d => d[m].S));
+            var zf = Math.Abs(fit.FrequencyHz.Value - estimate[m].F) / Math.Sqrt(fit.FrequencyHz.StandardUncertainty * fit.FrequencyHz.StandardUncertainty + uf * uf);
+            var zs = Math.Abs(fit.DecayRatePerS.Value - estimate[m].S) / Math.Sqrt(fit.DecayRatePerS.StandardUncertainty * fit.DecayRatePerS.StandardUncertainty + us * us);
+            zf = double.IsFinite(zf) ? zf : 0;
+            zs = double.IsFinite(zs) ? zs : 0;
+            checks.Add(new CrossCheck(fit.N, new Measured(estimate[m].F, uf), new Measured(estimate[m].S, us), zf, zs,
+                zf <= options.ConsistencyCoverageFactor && zs <= options.ConsistencyCoverageFactor));
+        }
+        return null;
+    }
+
+    private static double StandardDeviation(IEnumerable<double> values)
+    {
+        var v = values.ToArray();
+        var mean = v.Average();
+        return Math.Sqrt(v.Sum(x => (x - mean) * (x - mean)) / (v.Length - 1));
+    }
+}

@@ -1,0 +1,74 @@
+using System.Numerics;
+
+namespace StringModes.Analysis.Fitting;
+
+/// <summary>A spectral peak located by interpolation.</summary>
+/// <param name="FrequencyHz">Interpolated peak frequency.</param>
+/// <param name="PeakToMedianPower">Power at the peak bin over the median power of the searched band: a detection statistic (≈ 1 for noise).</param>
+internal readonly record struct PeakEstimate(double FrequencyHz, double PeakToMedianPower);
+
+/// <summary>
+/// Frequency of the strongest spectral peak, as the seed of the nonlinear mode fit, and the classic three-point
+/// DFT interpolators. Uses FftSharp's unscaled FFT.
+/// </summary>
+internal static class SpectralPeak
+{
+    /// <summary>
+    /// Jacobsen's three-bin estimator of the fractional bin offset of a tone from the rectangular-window DFT values
+    /// X[k−1], X[k], X[k+1] (Jacobsen &amp; Kootsookos 2007, IEEE Signal Processing Magazine 24(3):123):
+    /// δ = Re[(X[k−1] − X[k+1]) / (2X[k] − X[k−1] − X[k+1])].
+    /// </summary>
+    public static double Jacobsen(Complex previous, Complex peak, Complex next)
+        => ((previous - next) / (2.0 * peak - previous - next)).Real;
+
+    /// <summary>Candan's bias correction of Jacobsen's estimator for an N-point DFT (Candan 2011, IEEE SP Letters 18:351): δ·tan(π/N)/(π/N).</summary>
+    public static double CandanCorrected(double jacobsenOffset, int n) => jacobsenOffset * Math.Tan(Math.PI / n) / (Math.PI / n);
+
+    /// <summary>
+    /// Strongest peak above <paramref name="minimumHz"/>: Hann window, zero padding to at least 8× the record
+    /// (rounded up to a power of two), and a parabola through the logarithm of the three highest bins (for the
+    /// Hann main lobe, nearly a parabola in dB: Gaussian interpolation, Gasior &amp; Gonzalez 2004, CERN-AB-2004-023).
+    /// The seed is within a small fraction of a bin; the mode fit refines it. Samples must be uniform at <paramref name="sampleRateHz"/>.
+    /// </summary>
+    public static PeakEstimate Strongest(ReadOnlySpan<double> samples, double sampleRateHz, double minimumHz)
+    {
+        var n = samples.Length;
+        var size = 1;
+        while (size < 8 * n) size <<= 1;
+        double mean = 0;
+        foreach (var v in samples) mean += v;
+        mean /= n;
+        var buffer = new Complex[size];
+        for (var i = 0; i < n; i++)
+        {
+            var w = 0.5 - 0.5 * Math.Cos(2.0 * Math.PI * (i + 0.5) / n);
+            buffer[i] = new Complex((samples[i] - mean) * w, 0);
+        }
+        FftSharp.FFT.Forward(buffer);
+        var half = size / 2;
+        var power = new double[half + 1];
+        for (var k = 0; k <= half; k++) power[k] = buffer[k].Real * buffer[k].Real + buffer[k].Imaginary * buffer[k].Imaginary;
+
+        var binHz = sampleRateHz / size;
+        var first = Math.Max(1, (int)Math.Ceiling(minimumHz / binHz));
+        if (first >= half - 1) return new PeakEstimate(0, 0);
+        var best = first;
+        for (var k = first; k < half; k++) if (power[k] > power[best]) best = k;
+        var band = power[first..half];
+        Array.Sort(band);
+        var median = band[band.Length / 2];
+        var ratio = median > 0 ? power[best] / median : (power[best] > 0 ? double.MaxValue : 0);
+        if (power[best] <= 0) return new PeakEstimate(0, 0);
+
+        var offset = 0.0;
+        if (best > 0 && best < half && power[best - 1] > 0 && power[best + 1] > 0)
+        {
+            var lm = Math.Log(power[best - 1]);
+            var l0 = Math.Log(power[best]);
+            var lp = Math.Log(power[best + 1]);
+            var denominator = lm - 2 * l0 + lp;
+            if (denominator < 0) offset = Math.Clamp(0.5 * (lm - lp) / denominator, -0.5, 0.5);
+        }
+        return new PeakEstimate((best + offset) * binHz, ratio);
+    }
+}
