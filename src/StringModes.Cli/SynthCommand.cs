@@ -1,3 +1,4 @@
+using StringModes.Video.Files;
 using StringModes.Video.Synthesis;
 
 namespace StringModes.Cli;
@@ -27,7 +28,7 @@ internal sealed class SynthCommand(App app)
 
         Scene scene;
         try { scene = SceneFile.Load(a.Positionals[0]); }
-        catch (SceneException e) { throw new CliException(ExitCodes.BadInput, e.Message); }
+        catch (InputFileException e) { throw new CliException(ExitCodes.BadInput, e.Message); }
 
         SynthesisResult result;
         try

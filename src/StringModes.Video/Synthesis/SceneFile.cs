@@ -1,11 +1,12 @@
 using System.Text.Json;
 using StringModes.Analysis.Physics;
+using StringModes.Video.Files;
 
 namespace StringModes.Video.Synthesis;
 
 /// <summary>
 /// Reads a scene file (JSON; format in docs/scene-file.md) into a validated <see cref="Scene"/>.
-/// Every problem is reported as a <see cref="SceneException"/> whose one-line message names the field and the fix.
+/// Every problem is reported as a <see cref="InputFileException"/> whose one-line message names the field and the fix.
 /// </summary>
 public static class SceneFile
 {
@@ -16,7 +17,7 @@ public static class SceneFile
         try { text = File.ReadAllText(path); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new SceneException($"{path}: cannot be read ({e.Message}); check the path and its permissions");
+            throw new InputFileException($"{path}: cannot be read ({e.Message}); check the path and its permissions");
         }
         return Parse(text, path);
     }
@@ -31,7 +32,7 @@ public static class SceneFile
         }
         catch (JsonException e)
         {
-            throw new SceneException($"{fileName}: not valid JSON (line {e.LineNumber + 1}); fix the syntax near there");
+            throw new InputFileException($"{fileName}: not valid JSON (line {e.LineNumber + 1}); fix the syntax near there");
         }
         using (doc)
             return Build(new JsonFields(fileName, "", doc.RootElement));

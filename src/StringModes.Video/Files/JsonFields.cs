@@ -1,12 +1,13 @@
 using System.Text.Json;
+using StringModes.Video.Synthesis;
 
-namespace StringModes.Video.Synthesis;
+namespace StringModes.Video.Files;
 
 /// <summary>
 /// Reads typed fields from a JSON object with messages that name the file, the dotted field path and the fix.
 /// Unknown fields are refused so that a misspelt option never passes silently.
 /// </summary>
-internal sealed class JsonFields
+public sealed class JsonFields
 {
     private readonly string _file;
     private readonly string _path;
@@ -22,7 +23,7 @@ internal sealed class JsonFields
             throw Error(path.Length == 0 ? "(top level)" : path, $"must be an object, got {Kind(element)}", "write it as { ... }");
     }
 
-    public SceneException Error(string field, string problem, string fix)
+    public InputFileException Error(string field, string problem, string fix)
         => new($"{_file}: {field} {problem}; {fix}");
 
     private string Field(string name) => _path.Length == 0 ? name : _path + "." + name;
@@ -46,7 +47,7 @@ internal sealed class JsonFields
     }
 
     public JsonFields Object(string name)
-        => Get(name) is { } v ? new JsonFields(_file, Field(name), v) : throw Error(Field(name), "is missing", "add the section (see docs/scene-file.md)");
+        => Get(name) is { } v ? new JsonFields(_file, Field(name), v) : throw Error(Field(name), "is missing", "add the section (see the file format in docs/)");
 
     public JsonFields? OptionalObject(string name)
         => Get(name) is { } v ? new JsonFields(_file, Field(name), v) : null;
@@ -135,6 +136,6 @@ internal sealed class JsonFields
     {
         foreach (var p in _element.EnumerateObject())
             if (!_read.Contains(p.Name))
-                throw Error(Field(p.Name), "is not a known field", "check its spelling against docs/scene-file.md or remove it");
+                throw Error(Field(p.Name), "is not a known field", "check its spelling against the format in docs/ or remove it");
     }
 }
