@@ -1,0 +1,92 @@
+using OpenCvSharp;
+using StringModes.Video.Files;
+
+namespace StringModes.Video.Frames;
+
+/// <summary>
+/// Frames of a video file (mp4, mov, mkv, avi; H.264, HEVC, MPEG-4, MJPEG, FFV1) decoded by OpenCV's FFmpeg backend,
+/// with each frame's presentation timestamp (CAP_PROP_POS_MSEC).
+/// </summary>
+public sealed class VideoFileSource : IFrameSource
+{
+    private readonly VideoCapture _capture;
+    private readonly Mat _frame = new();
+    private readonly List<string> _warnings = [];
+    private int _read;
+    private double _lastTimestamp = double.NegativeInfinity;
+
+    public VideoFileSource(string path)
+    {
+        Path = path;
+        if (!File.Exists(path))
+            throw new InputFileException($"{path}: no such file; check the path");
+        try
+        {
+            using (File.OpenRead(path)) { }
+        }
+        catch (UnauthorizedAccessException)
+        {
+            throw new InputFileException($"{path}: permission denied; make the file readable (chmod +r) or copy it");
+        }
+        if (new FileInfo(path).Length == 0)
+            throw new InputFileException($"{path}: the file is empty; record or copy the clip again");
+        _capture = new VideoCapture(path, VideoCaptureAPIs.FFMPEG);
+        if (!_capture.IsOpened())
+        {
+            _capture.Dispose();
+            throw new InputFileException($"{path}: not a readable video (unknown container or codec, or damaged); convert it to H.264 MP4 or export an image sequence");
+        }
+        WidthPx = _capture.FrameWidth;
+        HeightPx = _capture.FrameHeight;
+        var fps = _capture.Fps;
+        DeclaredFps = fps > 0 && double.IsFinite(fps) ? fps : double.NaN;
+        var count = _capture.FrameCount;
+        DeclaredFrameCount = count > 0 ? count : -1;
+        if (WidthPx <= 0 || HeightPx <= 0 || WidthPx > 16384 || HeightPx > 16384)
+        {
+            _capture.Dispose();
+            throw new InputFileException($"{path}: frame size {WidthPx}×{HeightPx} is not usable; the file is damaged or not a video");
+        }
+    }
+
+    public string Path { get; }
+    public int WidthPx { get; }
+    public int HeightPx { get; }
+    public double DeclaredFps { get; }
+    public int DeclaredFrameCount { get; }
+    public IReadOnlyList<string> Warnings => _warnings;
+
+    public bool Read(out Mat frame, out double timestampS)
+    {
+        frame = _frame;
+        timestampS = double.NaN;
+        bool ok;
+        try { ok = _capture.Read(_frame) && !_frame.Empty(); }
+        catch (OpenCVException) { ok = false; }
+        if (!ok)
+        {
+            if (DeclaredFrameCount > 0 && _read < DeclaredFrameCount - 1)
+                _warnings.Add($"{Path}: decoding stopped after {_read} of {DeclaredFrameCount} declared frames; the file may be truncated or damaged, so only the frames before the damage were used");
+            return false;
+        }
+        if (_frame.Cols != WidthPx || _frame.Rows != HeightPx)
+        {
+            _warnings.Add($"{Path}: frame {_read} changed size to {_frame.Cols}×{_frame.Rows}; stopped there");
+            return false;
+        }
+        var ms = _capture.Get(VideoCaptureProperties.PosMsec);
+        var nominal = double.IsNaN(DeclaredFps) ? double.NaN : _read / DeclaredFps;
+        // Some containers report no timestamp (0 for every frame): fall back to the declared rate.
+        timestampS = ms > 0 || _read == 0 ? ms / 1000.0 : nominal;
+        if (!(timestampS > _lastTimestamp)) timestampS = double.IsNaN(nominal) ? _lastTimestamp + 1e-3 : Math.Max(nominal, _lastTimestamp + 1e-9);
+        _lastTimestamp = timestampS;
+        _read++;
+        return true;
+    }
+
+    public void Dispose()
+    {
+        _capture.Dispose();
+        _frame.Dispose();
+    }
+}
