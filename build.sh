@@ -36,7 +36,7 @@ case "${1:-}" in
     ensure_packages "${runtime_packages[@]}"
     dotnet build src/StringModes.Cli -c Release -v quiet -nologo
     cli=src/StringModes.Cli/bin/Release/net10.0/stringmodes
-    clip=demo-clips/nylon-bench/nylon-bench.mkv
+    clip=demo-clips/nylon-bench/nylon-bench.mp4
     "$cli" analyze "$clip" --rig demo-clips/nylon-bench/rig.json --out demo-output --force
     echo "Report: $(pwd)/demo-output/report.html"
     ;;

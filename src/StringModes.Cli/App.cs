@@ -49,6 +49,8 @@ public sealed class App(TextWriter stdout, TextWriter stderr, bool noColour = tr
             return rest[0] switch
             {
                 "synth" => new SynthCommand(this).Run(tail, cancel),
+                "analyze" => new AnalyzeCommand(this).Run(tail, cancel),
+                "track" => new TrackCommand(this).Run(tail, cancel),
                 _ => throw new CliException(ExitCodes.Usage, $"stringmodes: unknown command '{rest[0]}'; commands are analyze, track and synth (see 'stringmodes --help')"),
             };
         }
@@ -69,6 +71,9 @@ public sealed class App(TextWriter stdout, TextWriter stderr, bool noColour = tr
             return ExitCodes.InternalError;
         }
     }
+
+    /// <summary>The output folder of the running command, for messages.</summary>
+    public string? OutDir { get; set; }
 
     /// <summary>Writes a warning line to stderr.</summary>
     public void Warn(string message) => Error.WriteLine(NoColour ? $"warning: {message}" : $"\u001b[33mwarning:\u001b[0m {message}");

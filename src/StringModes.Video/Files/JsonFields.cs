@@ -76,6 +76,42 @@ public sealed class JsonFields
         return x;
     }
 
+    /// <summary>A quantity written as an SI number or as text with a unit ("65 cm"); returns the SI value.</summary>
+    public double? OptionalQuantity(string name, StringModes.Analysis.Units.Dimension dimension, double min, bool minExclusive, string fix)
+    {
+        var v = Get(name);
+        if (v is null) return null;
+        double x;
+        if (v.Value.ValueKind == JsonValueKind.String)
+        {
+            if (!StringModes.Analysis.Units.Quantity.TryParse(v.Value.GetString(), dimension, out x, out var error))
+                throw Error(Field(name), error, fix);
+        }
+        else if (v.Value.ValueKind == JsonValueKind.Number && v.Value.TryGetDouble(out x)) { }
+        else throw Error(Field(name), $"must be a number in SI units or text with a unit, got {Kind(v.Value)}", fix);
+        if (!double.IsFinite(x) || (minExclusive ? x <= min : x < min))
+            throw Error(Field(name), $"must be {(minExclusive ? ">" : "≥")} {min.ToString("G", System.Globalization.CultureInfo.InvariantCulture)} and finite", fix);
+        return x;
+    }
+
+    /// <summary>An optional array of [x, y] pixel points.</summary>
+    public IReadOnlyList<PixelPoint>? OptionalPoints(string name, string fix)
+    {
+        var v = Get(name);
+        if (v is null) return null;
+        if (v.Value.ValueKind != JsonValueKind.Array) throw Error(Field(name), $"must be an array of [x, y] points, got {Kind(v.Value)}", fix);
+        var points = new List<PixelPoint>();
+        var i = 0;
+        foreach (var e in v.Value.EnumerateArray())
+        {
+            var field = $"{Field(name)}[{i++}]";
+            if (e.ValueKind != JsonValueKind.Array || e.GetArrayLength() != 2) throw Error(field, "must be [x, y]", fix);
+            var xy = e.EnumerateArray().Select(c => CheckNumber(field, c, double.NegativeInfinity, double.PositiveInfinity, false, fix)).ToArray();
+            points.Add(new PixelPoint(xy[0], xy[1]));
+        }
+        return points;
+    }
+
     public int Integer(string name, int? fallback, int min, int max, string fix)
     {
         var v = Get(name);

@@ -14,7 +14,7 @@ public static class TracksCsv
     public static void Write(string path, Tracks tracks)
         => AtomicFile.Write(path, stream =>
         {
-            using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16);
+            using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
             writer.NewLine = "\n";
             writer.WriteLine(Header);
             for (var k = 0; k < tracks.FrameCount; k++)

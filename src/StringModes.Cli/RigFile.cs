@@ -1,0 +1,75 @@
+using System.Text.Json;
+using StringModes.Analysis.Units;
+using StringModes.Video.Files;
+using StringModes.Video.Synthesis;
+
+namespace StringModes.Cli;
+
+/// <summary>
+/// What a rig file (JSON; docs/rig-file.md) says about the set-up. Quantities are SI numbers or text with a unit.
+/// Command-line options override it.
+/// </summary>
+internal sealed record Rig
+{
+    public string Description { get; init; } = "";
+    public double? LengthM { get; init; }
+    public double? LengthUncertaintyM { get; init; }
+    public double? LinearDensityKgPerM { get; init; }
+    public double? LinearDensityUncertaintyKgPerM { get; init; }
+    public double? SampleMassKg { get; init; }
+    public double? SampleMassUncertaintyKg { get; init; }
+    public double? SampleLengthM { get; init; }
+    public double? SampleLengthUncertaintyM { get; init; }
+    public double? MaterialDensityKgPerM3 { get; init; }
+    public double? MaterialDensityUncertaintyKgPerM3 { get; init; }
+    public double? DiameterM { get; init; }
+    public double? DiameterUncertaintyM { get; init; }
+    public double? UnstretchedLengthM { get; init; }
+    public double? UnstretchedLengthUncertaintyM { get; init; }
+    public double? CaptureFps { get; init; }
+    public double? ReadoutS { get; init; }
+    public IReadOnlyList<PixelPoint>? MarksPx { get; init; }
+
+    public static Rig Load(string path)
+    {
+        string text;
+        try { text = File.ReadAllText(path); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new InputFileException($"{path}: cannot be read ({e.Message}); check the path and its permissions");
+        }
+        JsonDocument doc;
+        try { doc = JsonDocument.Parse(text, new JsonDocumentOptions { AllowTrailingCommas = true, CommentHandling = JsonCommentHandling.Skip }); }
+        catch (JsonException e) { throw new InputFileException($"{path}: not valid JSON (line {e.LineNumber + 1}); fix the syntax near there"); }
+        using (doc)
+        {
+            var f = new JsonFields(path, "", doc.RootElement);
+            const string lengthFix = "give a length such as \"80 cm\" or 0.8 (metres)";
+            var rig = new Rig
+            {
+                Description = f.OptionalString("description") ?? "",
+                LengthM = f.OptionalQuantity("length", Dimension.Length, 0, true, lengthFix),
+                LengthUncertaintyM = f.OptionalQuantity("length_uncertainty", Dimension.Length, 0, false, lengthFix),
+                LinearDensityKgPerM = f.OptionalQuantity("linear_density", Dimension.LinearDensity, 0, true, "give a linear density such as \"0.987 g/m\" or 0.000987 (kg/m)"),
+                LinearDensityUncertaintyKgPerM = f.OptionalQuantity("linear_density_uncertainty", Dimension.LinearDensity, 0, false, "give a linear density such as \"0.005 g/m\""),
+                SampleMassKg = f.OptionalQuantity("sample_mass", Dimension.Mass, 0, true, "give a mass such as \"1.234 g\""),
+                SampleMassUncertaintyKg = f.OptionalQuantity("sample_mass_uncertainty", Dimension.Mass, 0, false, "give a mass such as \"1 mg\""),
+                SampleLengthM = f.OptionalQuantity("sample_length", Dimension.Length, 0, true, lengthFix),
+                SampleLengthUncertaintyM = f.OptionalQuantity("sample_length_uncertainty", Dimension.Length, 0, false, lengthFix),
+                MaterialDensityKgPerM3 = f.OptionalQuantity("material_density", Dimension.Density, 0, true, "give a density such as \"1.14 g/cm3\""),
+                MaterialDensityUncertaintyKgPerM3 = f.OptionalQuantity("material_density_uncertainty", Dimension.Density, 0, false, "give a density such as \"0.01 g/cm3\""),
+                DiameterM = f.OptionalQuantity("diameter", Dimension.Length, 0, true, lengthFix),
+                DiameterUncertaintyM = f.OptionalQuantity("diameter_uncertainty", Dimension.Length, 0, false, lengthFix),
+                UnstretchedLengthM = f.OptionalQuantity("unstretched_length", Dimension.Length, 0, true, lengthFix),
+                UnstretchedLengthUncertaintyM = f.OptionalQuantity("unstretched_length_uncertainty", Dimension.Length, 0, false, lengthFix),
+                CaptureFps = f.OptionalQuantity("capture_fps", Dimension.Frequency, 0, true, "give the true capture rate in frames per second, e.g. 240"),
+                ReadoutS = f.OptionalQuantity("readout", Dimension.Time, 0, false, "give the rolling-shutter readout time such as \"20 ms\""),
+                MarksPx = f.OptionalPoints("marks_px", "list the marks as [[x, y], ...] in pixels, ends first and last"),
+            };
+            f.RefuseUnknown();
+            if (rig.MarksPx is { Count: < 5 })
+                throw new InputFileException($"{path}: marks_px lists {rig.MarksPx.Count} points; give the two ends and at least 3 moving marks, in order along the string");
+            return rig;
+        }
+    }
+}
