@@ -28,8 +28,9 @@ public static class ModeFitter
             var (fit, raw) = FitSeriesCore(modal.ModeNumbers[j], times, values, options);
             fits.Add(fit);
             internals.Add(raw);
-            warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
         }
+        RefitNearHarmonics(modal, options, fits, internals);
+        foreach (var fit in fits) warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
 
         var checks = new List<CrossCheck>();
         if (options.CrossCheck && fits.Any(f => f.IsUsable))
@@ -42,11 +43,51 @@ public static class ModeFitter
         return new ModeFitResult(fits, checks, warnings);
     }
 
+    /// <summary>
+    /// Mode identification. Small errors in tracking or mark positions leak a little of a strong mode into every
+    /// other modal coordinate; when a weak mode's own peak is smaller than that leakage, the strongest spectral peak
+    /// belongs to the wrong mode. A string's mode n sits near n·f1 (within the inharmonicity), so a mode whose fit lies
+    /// outside [0.8, 1.6]·n·f1 is refitted with the spectral search confined to that band; the refit is kept when it
+    /// finds a detectable peak there, with a note saying so.
+    /// </summary>
+    private static void RefitNearHarmonics(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals)
+    {
+        var first = fits.FirstOrDefault(f => f.N == 1 && f.IsUsable);
+        if (first is null) return;
+        var f1 = first.FrequencyHz.Value;
+        for (var j = 0; j < fits.Count; j++)
+        {
+            var n = fits[j].N;
+            if (n == 1) continue;
+            var expected = n * f1;
+            if (fits[j].IsUsable && fits[j].FrequencyHz.Value >= 0.8 * expected && fits[j].FrequencyHz.Value <= 1.6 * expected) continue;
+            var (times, values) = modal.ValidSeries(j);
+            var (refit, raw) = FitSeriesCore(n, times, values, options, (0.8 * expected, 1.6 * expected));
+            if (!refit.IsUsable || refit.FrequencyHz.Value < 0.8 * expected || refit.FrequencyHz.Value > 1.6 * expected)
+            {
+                if (fits[j].IsUsable)
+                {
+                    // The only peak belongs to another mode: report the mode as not seen rather than mislabel it.
+                    var reason = string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                        $"no peak near n·f1 = {expected:G6} Hz; the strongest peak of this modal coordinate ({fits[j].FrequencyHz.Value:G6} Hz) belongs to another mode leaking in, so the mode is reported as not detected");
+                    fits[j] = ModeFit.Unfitted(n, FitStatus.NoSignal, [reason]);
+                    internals[j] = null;
+                }
+                continue;
+            }
+            var note = fits[j].IsUsable
+                ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"the strongest peak of this modal coordinate ({fits[j].FrequencyHz.Value:G6} Hz) is far from n·f1 = {expected:G6} Hz, most likely another mode leaking in; the mode was fitted at its own peak near n·f1 instead")
+                : string.Create(System.Globalization.CultureInfo.InvariantCulture, $"found by searching near n·f1 = {expected:G6} Hz");
+            fits[j] = refit with { Warnings = [note, .. refit.Warnings] };
+            internals[j] = raw;
+        }
+    }
+
     /// <summary>Fits one series a(t) as mode <paramref name="n"/>. Times must be increasing; values finite.</summary>
     public static ModeFit FitSeries(int n, double[] timesS, double[] valuesM, ModeFitOptions? options = null)
         => FitSeriesCore(n, timesS, valuesM, options ?? new ModeFitOptions()).Fit;
 
-    private static (ModeFit Fit, SinusoidFit? Raw) FitSeriesCore(int n, double[] times, double[] values, ModeFitOptions options)
+    private static (ModeFit Fit, SinusoidFit? Raw) FitSeriesCore(int n, double[] times, double[] values, ModeFitOptions options, (double Low, double High)? bandHz = null)
     {
         var warnings = new List<string>();
         if (times.Length < 10)
@@ -61,7 +102,9 @@ public static class ModeFitter
         }
         var duration = times[^1] - times[0];
         var (uniform, rate) = ResampleUniform(times, values);
-        var peak = SpectralPeak.Strongest(uniform, rate, 1.0 / duration);
+        var peak = bandHz is { } band
+            ? SpectralPeak.Strongest(uniform, rate, Math.Max(1.0 / duration, band.Low), band.High)
+            : SpectralPeak.Strongest(uniform, rate, 1.0 / duration);
         if (peak.PeakToMedianPower < options.DetectionThreshold)
         {
             warnings.Add($"no vibration detected: the strongest spectral peak is only {peak.PeakToMedianPower:F1} times the median noise power (threshold {options.DetectionThreshold:G3})");

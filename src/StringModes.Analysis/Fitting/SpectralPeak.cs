@@ -31,6 +31,10 @@ internal static class SpectralPeak
     /// The seed is within a small fraction of a bin; the mode fit refines it. Samples must be uniform at <paramref name="sampleRateHz"/>.
     /// </summary>
     public static PeakEstimate Strongest(ReadOnlySpan<double> samples, double sampleRateHz, double minimumHz)
+        => Strongest(samples, sampleRateHz, minimumHz, double.PositiveInfinity);
+
+    /// <summary>Strongest peak between <paramref name="minimumHz"/> and <paramref name="maximumHz"/>; the noise median is over the whole spectrum.</summary>
+    public static PeakEstimate Strongest(ReadOnlySpan<double> samples, double sampleRateHz, double minimumHz, double maximumHz)
     {
         var n = samples.Length;
         var size = 1;
@@ -52,8 +56,11 @@ internal static class SpectralPeak
         var binHz = sampleRateHz / size;
         var first = Math.Max(1, (int)Math.Ceiling(minimumHz / binHz));
         if (first >= half - 1) return new PeakEstimate(0, 0);
-        var best = first;
-        for (var k = first; k < half; k++) if (power[k] > power[best]) best = k;
+        var lastBin = double.IsPositiveInfinity(maximumHz) ? half - 1 : Math.Min(half - 1, (int)Math.Floor(maximumHz / binHz));
+        var lowBin = Math.Max(first, (int)Math.Ceiling(minimumHz / binHz));
+        if (lastBin <= lowBin) return new PeakEstimate(0, 0);
+        var best = lowBin;
+        for (var k = lowBin; k <= lastBin; k++) if (power[k] > power[best]) best = k;
         var band = power[first..half];
         Array.Sort(band);
         var median = band[band.Length / 2];
