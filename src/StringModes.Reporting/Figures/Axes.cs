@@ -32,6 +32,8 @@ internal sealed class Axes
 
     public PixelRect PlotPx => new(Plot.Left, Plot.Top, Plot.Right, Plot.Bottom);
 
+    public AxesRange Range => new(XMin, XMax, YMin, YMax);
+
     public void FillBackground(SKCanvas canvas, SKColor colour)
     {
         using var paint = FigureStyle.Fill(colour);

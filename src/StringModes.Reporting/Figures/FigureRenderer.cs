@@ -4,7 +4,7 @@ using SkiaSharp;
 namespace StringModes.Reporting.Figures;
 
 /// <summary>What a drawing reports back about its layout.</summary>
-internal sealed record DrawnLayout(PixelRect PlotAreaPx, PixelRect? ColourBarAreaPx);
+internal sealed record DrawnLayout(PixelRect PlotAreaPx, PixelRect? ColourBarAreaPx, AxesRange AxesRange);
 
 /// <summary>
 /// Renders one drawing routine to both a PNG (raster surface, scaled by <see cref="FigureOptions.Scale"/>) and
@@ -56,6 +56,7 @@ internal static class FigureRenderer
             WidthPx = widthPx,
             HeightPx = heightPx,
             PlotAreaPx = ScaleRect(layout.PlotAreaPx, s),
+            AxesRange = layout.AxesRange,
             ColourBarAreaPx = layout.ColourBarAreaPx is { } bar ? ScaleRect(bar, s) : null,
         };
     }

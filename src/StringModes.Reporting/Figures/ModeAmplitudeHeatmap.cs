@@ -96,7 +96,7 @@ public static class ModeAmplitudeHeatmap
             });
             var barTicks = NiceTicks.Generate(floorDb, 0, 7);
             var bar = ColourBar.Draw(canvas, plot, map, floorDb, 0, barTicks, "Amplitude (dB re max)");
-            return new DrawnLayout(axes.PlotPx, bar);
+            return new DrawnLayout(axes.PlotPx, bar, axes.Range);
         });
     }
 

@@ -10,6 +10,9 @@ public readonly record struct PixelRect(double LeftPx, double TopPx, double Righ
     public double HeightPx => BottomPx - TopPx;
 }
 
+/// <summary>Data range of a figure's main axes, in the units of its axis labels.</summary>
+public readonly record struct AxesRange(double XMin, double XMax, double YMin, double YMax);
+
 /// <summary>
 /// One figure rendered twice from the same drawing: a PNG image and an SVG document.
 /// <see cref="PlotAreaPx"/> and <see cref="ColourBarAreaPx"/> give where the data and the colour bar were
@@ -37,6 +40,9 @@ public sealed record RenderedFigure
 
     /// <summary>Data area of the main axes in PNG pixels.</summary>
     public required PixelRect PlotAreaPx { get; init; }
+
+    /// <summary>Data range of the main axes (for images: the image pixel extent).</summary>
+    public required AxesRange AxesRange { get; init; }
 
     /// <summary>Colour bar gradient area in PNG pixels; null when colour carries no data.</summary>
     public PixelRect? ColourBarAreaPx { get; init; }

@@ -105,7 +105,7 @@ public static class SpaceTimeHeatmap
             axes.DrawXAxis(canvas, NiceTicks.Generate(axes.XMin, axes.XMax, 8), "Time (s)");
             axes.DrawYAxis(canvas, NiceTicks.Generate(axes.YMin, axes.YMax, 7), inMm ? "Position along string (mm)" : "Position along string (m)");
             var bar = ColourBar.Draw(canvas, plot, map, -limitMm, limitMm, NiceTicks.Generate(-limitMm, limitMm, 7), "Displacement (mm)");
-            return new DrawnLayout(axes.PlotPx, bar);
+            return new DrawnLayout(axes.PlotPx, bar, axes.Range);
         });
     }
 

@@ -52,6 +52,36 @@ internal sealed class FigureReader : IDisposable
         return set.Count;
     }
 
+    /// <summary>Pixel position of a data point on the main axes (linear scales).</summary>
+    public (double X, double Y) ToPixel(double x, double y)
+    {
+        var r = Figure.AxesRange;
+        var p = Figure.PlotAreaPx;
+        return (p.LeftPx + (x - r.XMin) / (r.XMax - r.XMin) * p.WidthPx,
+                p.BottomPx - (y - r.YMin) / (r.YMax - r.YMin) * p.HeightPx);
+    }
+
+    /// <summary>Oklab distance between the pixel colour and <paramref name="colour"/>.</summary>
+    public double ColourDistance(double x, double y, SrgbColour colour) =>
+        Oklab.FromSrgb(Pixel(x, y)).DistanceTo(Oklab.FromSrgb(colour));
+
+    /// <summary>True when some pixel within <paramref name="radius"/> of (x, y) is within 0.04 (Oklab) of <paramref name="colour"/>.</summary>
+    public bool HasColourNear(double x, double y, SrgbColour colour, int radius = 3)
+    {
+        for (var dy = -radius; dy <= radius; dy++)
+        {
+            for (var dx = -radius; dx <= radius; dx++)
+            {
+                if (ColourDistance(x + dx, y + dy, colour) < 0.04)
+                {
+                    return true;
+                }
+            }
+        }
+
+        return false;
+    }
+
     public static XDocument ParseSvg(RenderedFigure figure)
     {
         var doc = XDocument.Parse(figure.Svg);
