@@ -55,6 +55,7 @@ internal static class FigureRenderer
             Svg = svg,
             WidthPx = widthPx,
             HeightPx = heightPx,
+            Scale = options.Scale,
             PlotAreaPx = ScaleRect(layout.PlotAreaPx, s),
             AxesRange = layout.AxesRange,
             ColourBarAreaPx = layout.ColourBarAreaPx is { } bar ? ScaleRect(bar, s) : null,

@@ -38,6 +38,9 @@ public sealed record RenderedFigure
     /// <summary>PNG height in pixels.</summary>
     public required int HeightPx { get; init; }
 
+    /// <summary>Pixel density the PNG was rendered at; display size is WidthPx / Scale × HeightPx / Scale.</summary>
+    public double Scale { get; init; } = 1;
+
     /// <summary>Data area of the main axes in PNG pixels.</summary>
     public required PixelRect PlotAreaPx { get; init; }
 
