@@ -31,7 +31,6 @@ internal sealed class AnalyzeCommand(App app)
         var tracking = TrackingStep.Run(app, clip, rig, output, cancel);
         var warnings = new List<string>(tracking.Warnings);
         warnings.AddRange(rig.Notes);
-        if (double.IsNaN(tracking.CaptureFps) && tracking.Tracks.FrameCount > 0) { }
         var window = AnalysisWindow.Choose(tracking.Tracks);
         warnings.AddRange(window.Notes);
         cancel.ThrowIfCancellationRequested();
@@ -68,6 +67,12 @@ internal sealed class AnalyzeCommand(App app)
         AtomicFile.WriteAllText(output.File("modes.csv"), ModesCsv.Format(result.Modal));
         AtomicFile.Write(output.File("results.json"), s => ResultsJson.Write(s, App.Version, input, result, distinctWarnings));
         File.WriteAllBytes(output.File("reference-frame.png"), tracking.ReferenceFramePng);
+        var report = ReportMapping.Build(clip, rig.Rig.Description, tracking, window, coordinates, result, distinctWarnings, settings);
+        try { Reporting.Html.ReportWriter.Write(report, output.Staging); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new CliException(ExitCodes.OutputNotWritable, $"{outDir}: the report could not be written ({e.Message})");
+        }
         output.Commit();
 
         foreach (var w in distinctWarnings) app.Warn(w);

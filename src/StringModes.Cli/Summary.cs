@@ -26,7 +26,7 @@ internal static class Summary
             if (s.TensionN is { } t) o.WriteLine($"tension T              {F(t)} N");
             else o.WriteLine("tension T              not computed (give --linear-density)");
             if (s.SecondHarmonic is { } check)
-                o.WriteLine(string.Create(ic, $"f2/(2 f1) = 1          {(check.Passes ? "yes" : "NO")}: {F(check.Ratio)}, {check.DeviationInUncertainties:F1} standard uncertainties from 1 (tolerance k = {check.CoverageFactor:G3})"));
+                o.WriteLine(string.Create(ic, $"f2 = 2 f1 ?           {(check.Passes ? "yes" : "NO")}: {F(check.Ratio)}, {check.DeviationInUncertainties:F1} standard uncertainties from 2 (tolerance k = {check.CoverageFactor:G3})"));
         }
         o.WriteLine();
         o.WriteLine($"results: {Path.Combine(outDir, "results.json")}");
