@@ -42,6 +42,13 @@ public sealed class ReportInBrowserTests : IDisposable
         var result = Chromium.Run(report, "--screenshot=" + shot, "--window-size=1280,1600");
         Assert.True(result.ExitCode == 0, $"Chromium exited with {result.ExitCode}: {result.Stderr}");
         Assert.True(result.ConsoleLines.Length == 0, "console messages:\n" + string.Join("\n", result.ConsoleLines));
+        if (Environment.GetEnvironmentVariable("STRINGMODES_FIGURE_DUMP") is { Length: > 0 } dump)
+        {
+            Directory.CreateDirectory(dump);
+            File.Copy(shot, Path.Combine(dump, "report-screenshot.png"), overwrite: true);
+            File.Copy(report, Path.Combine(dump, "report.html"), overwrite: true);
+        }
+
         using var image = SKBitmap.Decode(shot);
         Assert.NotNull(image);
         Assert.Equal((1280, 1600), (image.Width, image.Height));
