@@ -17,9 +17,10 @@ public static class UncertaintyFormat
 
     /// <summary>
     /// "value ± uncertainty unit". When <paramref name="uncertainty"/> is zero, negative or not finite, the
-    /// value alone is shown with six significant digits.
+    /// value alone is shown with six significant digits. With <paramref name="allowExponent"/> false the
+    /// shared power of ten is never used (for table columns that must line up), down to 1e-12.
     /// </summary>
-    public static string Format(double value, double uncertainty, string? unit = null)
+    public static string Format(double value, double uncertainty, string? unit = null, bool allowExponent = true)
     {
         if (!double.IsFinite(value))
         {
@@ -32,7 +33,8 @@ public static class UncertaintyFormat
         }
 
         var magnitude = Math.Max(Math.Abs(value), uncertainty);
-        if (magnitude >= 1e6 || magnitude < 1e-3)
+        var fixedPossible = !allowExponent && magnitude < 1e15 && DecimalsForUncertainty(uncertainty) <= 12;
+        if ((magnitude >= 1e6 || magnitude < 1e-3) && !fixedPossible)
         {
             var exponent = (int)Math.Floor(Math.Log10(magnitude));
             var scale = Math.Pow(10, exponent);
@@ -44,7 +46,7 @@ public static class UncertaintyFormat
         return WithUnit($"{vs} ± {us}", unit);
     }
 
-    /// <summary>The value rounded as in <see cref="Format(double, double, string?)"/>, without the uncertainty or unit.</summary>
+    /// <summary>The value rounded as in <see cref="Format(double, double, string?, bool)"/>, without the uncertainty or unit.</summary>
     public static string FormatValueOnly(double value, double uncertainty) =>
         !double.IsFinite(value) ? NotAvailable
         : !(uncertainty > 0) || !double.IsFinite(uncertainty) ? FormatValue(value)

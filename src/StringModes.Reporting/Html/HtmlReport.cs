@@ -150,14 +150,14 @@ public static class HtmlReport
             return;
         }
 
-        h.Append("<table class=\"modes\">\n<thead><tr><th>n</th><th>Frequency (Hz)</th><th>Decay rate σ (1/s)</th><th>Damping ratio ζ</th><th>Q</th><th>Amplitude (mm)</th><th>f<sub>n</sub> / (n·f<sub>1</sub>)</th></tr></thead>\n<tbody>\n");
+        h.Append("<table class=\"modes\">\n<thead><tr><th>n</th><th>Frequency (Hz)</th><th>Decay rate σ (1/s)</th><th>Damping ratio ζ (10<sup>−3</sup>)</th><th>Q</th><th>Amplitude (mm)</th><th>f<sub>n</sub> / (n·f<sub>1</sub>)</th></tr></thead>\n<tbody>\n");
         foreach (var r in model.Modes)
         {
             h.Append("<tr id=\"mode-").Append(r.ModeNumber.ToString(CultureInfo.InvariantCulture)).Append("\"><td class=\"num\">")
                 .Append(r.ModeNumber.ToString(CultureInfo.InvariantCulture)).Append("</td>");
-            foreach (var v in new[] { r.FrequencyHz, r.DecayRatePerS, r.DampingRatio, r.QFactor, Scale(r.AmplitudeM, 1e3), r.HarmonicRatio })
+            foreach (var v in new[] { r.FrequencyHz, r.DecayRatePerS, Scale(r.DampingRatio, 1e3), r.QFactor, Scale(r.AmplitudeM, 1e3), r.HarmonicRatio })
             {
-                h.Append("<td class=\"num\">").Append(E(Measured(v, null))).Append("</td>");
+                h.Append("<td class=\"num\">").Append(E(UncertaintyFormat.Format(v.Value, v.StandardUncertainty, null, allowExponent: false))).Append("</td>");
             }
 
             h.Append("</tr>\n");

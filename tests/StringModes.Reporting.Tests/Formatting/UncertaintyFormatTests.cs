@@ -30,6 +30,13 @@ public class UncertaintyFormatTests
         Assert.Equal(expected, UncertaintyFormat.Format(value, u, unit));
     }
 
+    [Fact]
+    public void FixedNotation_WhenExponentNotAllowed()
+    {
+        Assert.Equal("0.000875 ± 0.000020", UncertaintyFormat.Format(8.75e-4, 2.0e-5, allowExponent: false));
+        Assert.Equal("(8.75 ± 0.20) × 10⁻⁴", UncertaintyFormat.Format(8.75e-4, 2.0e-5));
+    }
+
     [Theory]
     [InlineData(1.0, 0.0, "1")]
     [InlineData(261.63, double.NaN, "261.63")]

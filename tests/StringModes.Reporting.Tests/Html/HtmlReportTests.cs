@@ -27,10 +27,13 @@ public class HtmlReportTests
             var cells = row.Elements("td").Select(c => c.Value).ToArray();
             Assert.Equal(7, cells.Length);
             Assert.Equal(StringModes.Reporting.Formatting.UncertaintyFormat.Format(mode.FrequencyHz.Value, mode.FrequencyHz.StandardUncertainty), cells[1]);
+            Assert.Equal(mode.ModeNumber.ToString(System.Globalization.CultureInfo.InvariantCulture), cells[0]);
         }
 
-        // Mode 2 frequency 200.0016 ± 0.0062 Hz (hand-worked: u = 0.0062 → 4 decimals).
+        // Mode 2 frequency 200.0016 ± 0.0062 Hz (hand-worked: u = 0.0062 → 4 decimals); damping ratio
+        // 1.1/(2π·200) = 8.7535e-4 ± 2e-5 shown in units of 10⁻³ as 0.875 ± 0.020 [computed].
         Assert.Contains("200.0016 ± 0.0062", html);
+        Assert.Contains("<td class=\"num\">0.875 ± 0.020</td>", html);
     }
 
     [Fact]
