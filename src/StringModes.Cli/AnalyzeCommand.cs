@@ -16,9 +16,11 @@ internal sealed class AnalyzeCommand(App app)
     public static readonly string[] ValueOptions = ["out", "rig", "length", "length-uncertainty", "linear-density", "linear-density-uncertainty",
         "capture-fps", "readout-ms", "max-modes", "harmonic-k"];
 
+    public static readonly string[] Flags = ["force", "json"];
+
     public int Run(string[] args, CancellationToken cancel)
     {
-        var a = new ArgumentReader("analyze", args, ValueOptions, ["force", "json"]);
+        var a = new ArgumentReader("analyze", args, ValueOptions, Flags);
         if (a.Positionals.Count != 1) throw a.Usage("give exactly one clip (a video file or a folder of images)");
         var clip = a.Positionals[0];
         var outDir = a.Value("out") ?? throw a.Usage("--out DIR is required: the folder for results.json, report.html and the rest");

@@ -20,7 +20,7 @@ internal static class HelpText
 
         Usage:
           stringmodes analyze CLIP --length L --linear-density MU --out DIR [options]
-          stringmodes track CLIP --length L --out DIR [options]
+          stringmodes track CLIP --out DIR [options]
           stringmodes synth SCENE --out CLIP [options]
           stringmodes --version | --help | COMMAND --help
 
@@ -66,8 +66,66 @@ internal static class HelpText
         {ExitCodeTable}
         """;
 
+    public static string Analyze => $"""
+        stringmodes analyze CLIP --length L --out DIR [options]
+
+        Tracks the marks on the string in CLIP (a video file, or a folder of numbered images with --capture-fps),
+        fits every mode (frequency, decay rate, damping ratio, Q) and infers the ideal fundamental, inharmonicity,
+        wave speed and, given the linear density, the tension, each with its standard uncertainty. Writes
+        results.json, modes.csv, tracks.csv and reference-frame.png into DIR as a whole: nothing is kept if it fails.
+        Lengths and densities take a number in SI units or a number with a unit (65cm, 0.99g/m).
+
+        Options:
+          --out DIR                      output folder (required); must be new or empty unless --force
+          --length L                     vibrating length between the ends (required here or in the rig file)
+          --length-uncertainty U         standard uncertainty of the length (default 0, with a warning)
+          --linear-density MU            mass per unit length; without it the tension is not computed
+          --linear-density-uncertainty U standard uncertainty of the linear density (default 0, with a warning)
+          --rig FILE                     rig file (JSON; see docs/rig-file.md); options given here win over it
+          --capture-fps F                true capture rate in frames/s; needed for an image folder and for a
+                                         slow-motion file whose declared rate is not the capture rate
+          --readout-ms R                 rolling-shutter readout time in ms, 0-1000 (default 0: global shutter)
+          --max-modes N                  fit at most N modes, 1-64 (default: as many as the marks resolve)
+          --harmonic-k K                 coverage factor of the f2/(2 f1) = 1 check, 0.1-10 (default 2)
+          --force                        replace the contents of an existing DIR
+          --json                         print results.json on stdout instead of the summary table
+
+        Examples:
+          stringmodes analyze clip.mp4 --length 65cm --linear-density 0.99g/m --out results
+          stringmodes analyze demo-clips/nylon-bench/nylon-bench.mp4 --rig demo-clips/nylon-bench/rig.json --out /tmp/nylon
+          stringmodes analyze frames/ --capture-fps 1000 --length 0.8 --length-uncertainty 0.5mm --out results --json
+
+        {ExitCodeTable}
+        """;
+
+    public static string Track => $"""
+        stringmodes track CLIP --out DIR [options]
+
+        Finds the marks on the string in CLIP (a video file, or a folder of numbered images with --capture-fps) and
+        follows each through every frame; writes tracks.csv and marks-found.png (the reference frame with the marks
+        it found) into DIR as a whole. Use it to check the tracking before a full analysis.
+
+        Options:
+          --out DIR                output folder (required); must be new or empty unless --force
+          --length L               vibrating length between the ends (optional here), e.g. 65cm
+          --length-uncertainty U   standard uncertainty of the length
+          --rig FILE               rig file (JSON; see docs/rig-file.md); its marks_px fixes the mark positions
+          --capture-fps F          true capture rate in frames/s; needed for an image folder and for a
+                                   slow-motion file whose declared rate is not the capture rate
+          --readout-ms R           rolling-shutter readout time in ms, 0-1000 (default 0: global shutter)
+          --force                  replace the contents of an existing DIR
+
+        Examples:
+          stringmodes track clip.mp4 --out tracking
+          stringmodes track frames/ --capture-fps 1000 --rig rig.json --out tracking --force
+
+        {ExitCodeTable}
+        """;
+
     public static string? For(string command) => command switch
     {
+        "analyze" => Analyze,
+        "track" => Track,
         "synth" => Synth,
         _ => null,
     };

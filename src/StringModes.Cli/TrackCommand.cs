@@ -5,9 +5,13 @@ namespace StringModes.Cli;
 /// <summary><c>stringmodes track CLIP --out DIR</c>: tracking only; writes tracks.csv and the reference frame with the marks.</summary>
 internal sealed class TrackCommand(App app)
 {
+    public static readonly string[] ValueOptions = ["out", "rig", "length", "length-uncertainty", "capture-fps", "readout-ms"];
+
+    public static readonly string[] Flags = ["force"];
+
     public int Run(string[] args, CancellationToken cancel)
     {
-        var a = new ArgumentReader("track", args, ["out", "rig", "length", "length-uncertainty", "capture-fps", "readout-ms"], ["force", "json"]);
+        var a = new ArgumentReader("track", args, ValueOptions, Flags);
         if (a.Positionals.Count != 1) throw a.Usage("give exactly one clip (a video file or a folder of images)");
         var outDir = a.Value("out") ?? throw a.Usage("--out DIR is required");
         var rig = RigSettings.From(a, lengthRequired: false);
