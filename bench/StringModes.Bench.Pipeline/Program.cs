@@ -17,8 +17,8 @@ string Scene(string extraString, string camera, string extra = "") => $$"""
 {
   "description": "pipeline benchmark (invented): 0.9 m string under 30 N, 7 marks",
   "string": { "length_m": 0.9, "linear_density_kg_per_m": 0.0012, "tension_n": 30.0, {{extraString}}
-              "pluck": { "position_fraction": 0.3, "peak_m": 0.005, "mode_count": 4 }, "decay": { "s0_per_s": 0.5, "s2_s": 0.00002 } },
-  "image": { "width_px": 1280, "height_px": 720, "end0_px": [100, 360], "end1_px": [1180, 372] },
+              "pluck": { "position_fraction": 0.3, "peak_m": 0.006, "mode_count": 4 }, "decay": { "s0_per_s": 0.5, "s2_s": 0.00002 } },
+  "image": { "width_px": 800, "height_px": 240, "end0_px": [40, 120], "end1_px": [760, 128] },
   "marks": { "count": 7, "radius_px": 5, "colour_rgb": [30, 30, 36] },
   "background": { "colour_rgb": [165, 170, 160], "texture_contrast": 0.12 },
   "camera": { "capture_fps": 1000, "duration_s": {{seconds.ToString(CultureInfo.InvariantCulture)}}, {{camera}} }

@@ -175,8 +175,8 @@ internal static class ReportMapping
     private static double EstimateOf(string name, Analysis.StringModel.StringEstimate s) => name switch
     {
         "length" => s.LengthM?.Value ?? double.NaN,
-        "fundamental frequency" => s.FundamentalHz.Value,
-        "inharmonicity" => s.Inharmonicity.Value,
+        "f0² (regression intercept)" => s.FundamentalHz.Value * s.FundamentalHz.Value,
+        "f0²·B (regression slope)" => s.FundamentalHz.Value * s.FundamentalHz.Value * s.Inharmonicity.Value,
         "linear density" => s.LinearDensityKgPerM?.Value ?? double.NaN,
         _ => double.NaN,
     };
@@ -184,7 +184,7 @@ internal static class ReportMapping
     private static string UnitOf(string name) => name switch
     {
         "length" or "sample length" or "diameter" or "unstretched length" => "m",
-        "fundamental frequency" => "Hz",
+        "f0² (regression intercept)" or "f0²·B (regression slope)" => "Hz²",
         "linear density" => "kg/m",
         "sample mass" => "kg",
         "density" or "material density" => "kg/m³",

@@ -1,4 +1,3 @@
-using StringModes.Analysis.Geometry;
 using StringModes.Video.Files;
 using StringModes.Video.Marks;
 using StringModes.Video.Tracking;
@@ -26,11 +25,5 @@ internal static class TrackingStep
             output.Commit();
             throw new CliException(ExitCodes.AnalysisImpossible, $"{e.Message} (see {Path.Combine(app.OutDir ?? "", "marks-found.png")})");
         }
-    }
-
-    public static AnalysisWindowChoice Window(TrackingResult tracking)
-    {
-        var window = AnalysisWindow.Choose(tracking.Tracks);
-        return window;
     }
 }

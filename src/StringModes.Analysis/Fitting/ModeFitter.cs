@@ -133,7 +133,7 @@ public static class ModeFitter
         if (fit.ColourFactor > 1.0)
             warnings.Add($"fit residuals are not white near the mode frequency; uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
         else if (fit.ColourFactor < 1.0)
-            warnings.Add($"fit residuals are coloured and weak near the mode frequency; uncertainties were narrowed by a factor {Math.Sqrt(fit.ColourFactor):F2}");
+            warnings.Add($"fit residuals are coloured and weak near the mode frequency; uncertainties were reduced to {Math.Sqrt(fit.ColourFactor):F2} times their white-noise values");
         if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
             warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
 

@@ -35,6 +35,7 @@ public static class AnalysisWindow
             streak = Good(k) ? streak + 1 : 0;
             if (streak >= run) { first = k - run + 1; break; }
         }
+        if (first >= 0) first = SkipBlurredStart(tracks, first, run);
         if (first < 0)
         {
             first = 0;
@@ -62,6 +63,30 @@ public static class AnalysisWindow
             }
         }
         return new AnalysisWindowChoice(first, last, noise, notes);
+    }
+
+    // Blur lowers a centroid's quality (peak and mass fall as the streak lengthens). Block means of the quality over
+    // all moving marks are compared with the clip's settled level (median of the second half's blocks, with a
+    // tolerance of three median absolute deviations): the window starts at the first block that reaches it.
+    private static int SkipBlurredStart(Tracks tracks, int first, int block)
+    {
+        var means = new List<(int Start, double Mean)>();
+        for (var b = first; b + block <= tracks.FrameCount; b += block)
+        {
+            double sum = 0;
+            var n = 0;
+            for (var k = b; k < b + block; k++)
+                for (var i = 1; i < tracks.MarkCount - 1; i++) { sum += tracks.Quality[k, i]; n++; }
+            means.Add((b, n > 0 ? sum / n : 0));
+        }
+        if (means.Count < 4) return first;
+        var late = means.Skip(means.Count / 2).Select(m => m.Mean).Order().ToArray();
+        var median = late[late.Length / 2];
+        var mad = late.Select(v => Math.Abs(v - median)).Order().ToArray()[late.Length / 2];
+        var threshold = median - 3 * mad - 0.005;
+        foreach (var (start, mean) in means)
+            if (mean >= threshold) return start;
+        return first;
     }
 
     private static double EndScatter(Tracks tracks, int first)

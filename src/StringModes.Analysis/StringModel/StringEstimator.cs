@@ -80,8 +80,8 @@ public static class StringEstimator
                 // x = [L, μ inputs…, a, b]
                 var names = new List<string> { "length" };
                 names.AddRange(inputs.Select(i => i.Name));
-                names.Add("fundamental frequency");
-                names.Add("inharmonicity");
+                names.Add("f0² (regression intercept)");
+                names.Add("f0²·B (regression slope)");
                 var x = new List<double> { len.Value };
                 x.AddRange(inputs.Select(i => i.Value.Value));
                 x.Add(a);

@@ -51,7 +51,6 @@ public static class ResultsJson
         w.WriteNumber("valid_frames", result.Modal.ValidFrameCount);
         w.WriteEndObject();
 
-        var f1 = result.Fits.Modes.FirstOrDefault(m => m.N == 1 && m.IsUsable);
         var ratios = result.String?.HarmonicRatios.ToDictionary(r => r.N, r => r.Ratio) ?? [];
         w.WriteStartArray("modes");
         foreach (var m in result.Fits.Modes.OrderBy(m => m.N))
@@ -69,7 +68,7 @@ public static class ResultsJson
                 MeasuredValue(w, "logarithmic_decrement", m.LogarithmicDecrement);
                 MeasuredValue(w, "amplitude_m", m.AmplitudeM);
                 MeasuredValue(w, "phase_rad", m.PhaseRad);
-                MeasuredValue(w, "harmonic_ratio", ratios.TryGetValue(m.N, out var r) ? r : f1 is null ? null : null);
+                MeasuredValue(w, "harmonic_ratio", ratios.TryGetValue(m.N, out var r) ? r : null);
                 Number(w, "residual_rms_m", m.ResidualRmsM);
                 var check = result.Fits.CrossChecks.FirstOrDefault(c => c.N == m.N);
                 if (check is not null)

@@ -78,6 +78,9 @@ public sealed class VideoFileSource : IFrameSource
         var nominal = double.IsNaN(DeclaredFps) ? double.NaN : _read / DeclaredFps;
         // Some containers report no timestamp (0 for every frame): fall back to the declared rate.
         timestampS = ms > 0 || _read == 0 ? ms / 1000.0 : nominal;
+        // Containers such as Matroska store whole milliseconds: a constant-rate clip's timestamps then sit within
+        // 1 ms of k/rate. Those are snapped to the declared rate; real variable-rate clips drift further and keep theirs.
+        if (!double.IsNaN(nominal) && Math.Abs(timestampS - nominal) <= 1.0e-3 + 1e-9) timestampS = nominal;
         if (!(timestampS > _lastTimestamp)) timestampS = double.IsNaN(nominal) ? _lastTimestamp + 1e-3 : Math.Max(nominal, _lastTimestamp + 1e-9);
         _lastTimestamp = timestampS;
         _read++;
