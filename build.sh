@@ -43,7 +43,15 @@ case "${1:-}" in
   test)
     ensure_packages "${runtime_packages[@]}" "${test_packages[@]}"
     dotnet build StringModes.sln -c Release -v quiet -nologo
-    dotnet test StringModes.sln -c Release --no-build -v quiet --logger "console;verbosity=minimal"
+    log=$(mktemp)
+    status=0
+    dotnet test StringModes.sln -c Release --no-build -v quiet --logger "console;verbosity=minimal" | tee "$log" || status=$?
+    # One plain closing line for the whole suite.
+    passed=$(grep -oE "Passed: +[0-9]+" "$log" | grep -oE "[0-9]+" | paste -sd+ - | bc)
+    failed=$(grep -oE "Failed: +[0-9]+" "$log" | grep -oE "[0-9]+" | paste -sd+ - | bc)
+    rm -f "$log"
+    echo "${passed:-0} passed, ${failed:-0} failed"
+    exit "$status"
     ;;
   *)
     echo "usage: bash build.sh demo | bash build.sh test" >&2
