@@ -47,8 +47,8 @@ case "${1:-}" in
     status=0
     dotnet test StringModes.sln -c Release --no-build -v quiet --logger "console;verbosity=minimal" | tee "$log" || status=$?
     # One plain closing line for the whole suite.
-    passed=$(grep -oE "Passed: +[0-9]+" "$log" | grep -oE "[0-9]+" | paste -sd+ - | bc)
-    failed=$(grep -oE "Failed: +[0-9]+" "$log" | grep -oE "[0-9]+" | paste -sd+ - | bc)
+    passed=$(grep -oE "Passed: +[0-9]+" "$log" | awk '{s += $2} END {print s + 0}')
+    failed=$(grep -oE "Failed: +[0-9]+" "$log" | awk '{s += $2} END {print s + 0}')
     rm -f "$log"
     echo "${passed:-0} passed, ${failed:-0} failed"
     exit "$status"
