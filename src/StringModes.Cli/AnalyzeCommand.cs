@@ -2,6 +2,7 @@ using System.Globalization;
 using StringModes.Analysis;
 using StringModes.Analysis.Geometry;
 using StringModes.Reporting.Data;
+using StringModes.Shared;
 using StringModes.Video.Output;
 using StringModes.Video.Tracking;
 

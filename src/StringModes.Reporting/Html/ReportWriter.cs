@@ -1,5 +1,5 @@
 using StringModes.Reporting.Figures;
-using StringModes.Reporting.Files;
+using StringModes.Shared;
 using StringModes.Reporting.Model;
 
 namespace StringModes.Reporting.Html;

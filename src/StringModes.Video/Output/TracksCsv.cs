@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using StringModes.Shared;
 using StringModes.Analysis.Geometry;
 
 namespace StringModes.Video.Output;

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using StringModes.Analysis.Physics;
+using StringModes.Shared;
 using StringModes.Video.Output;
 
 namespace StringModes.Video.Synthesis;

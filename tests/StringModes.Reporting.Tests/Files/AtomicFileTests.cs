@@ -1,4 +1,4 @@
-using StringModes.Reporting.Files;
+using StringModes.Shared;
 
 namespace StringModes.Reporting.Tests.Files;
 
