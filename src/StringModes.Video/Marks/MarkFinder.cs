@@ -120,13 +120,15 @@ public static class MarkFinder
         using var abs = new Mat();
         Cv2.Absdiff(gf, bf, abs);
 
-        int ko = Odd(Math.Max(3, Math.Floor(o.MinDiameterPx * 0.7)));
+        int ko = Odd(Math.Max(3, Math.Floor(o.MinDiameterPx * 0.8)));
         using var kernel = Cv2.GetStructuringElement(MorphShapes.Ellipse, new Size(ko, ko));
         using var opened = new Mat();
         Cv2.MorphologyEx(abs, opened, MorphTypes.Open, kernel);
 
         double sigma = 1.4826 * Median(abs);
-        double threshold = Math.Max(o.ThresholdSigma * sigma, o.MinContrastDn);
+        // A third of the strongest response as well, so a contrasty string that survives the opening stays below threshold.
+        Cv2.MinMaxLoc(opened, out double _, out double peak);
+        double threshold = Math.Max(Math.Max(o.ThresholdSigma * sigma, o.MinContrastDn), peak / 3);
         using var binary = new Mat();
         Cv2.Threshold(opened, binary, threshold, 255, ThresholdTypes.Binary);
         using var bin8 = new Mat();

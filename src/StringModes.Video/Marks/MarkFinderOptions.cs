@@ -3,8 +3,8 @@ namespace StringModes.Video.Marks;
 /// <summary>How marks are found on the reference frame.</summary>
 public sealed record MarkFinderOptions
 {
-    /// <summary>Smallest mark diameter in pixels; ≥ 3; default 4. Lines thinner than about 0.7 of this (the string) are removed.</summary>
-    public double MinDiameterPx { get; init; } = 4;
+    /// <summary>Smallest mark diameter in pixels; ≥ 3; default 5. Lines thinner than about 0.8 of this (the string) are removed.</summary>
+    public double MinDiameterPx { get; init; } = 5;
 
     /// <summary>Largest mark diameter in pixels; &gt; <see cref="MinDiameterPx"/>; default 40.</summary>
     public double MaxDiameterPx { get; init; } = 40;

@@ -85,14 +85,7 @@ internal sealed class SyntheticStringScene
             return (x, y);
         }
 
-        double u = 0;
-        for (int n = 0; n < Modes.Length; n++)
-        {
-            var md = Modes[n];
-            u += md.AmplitudePx * Math.Sin((n + 1) * Math.PI * s) * Math.Exp(-md.DecayPerS * tS) * Math.Cos(2 * Math.PI * md.FrequencyHz * tS + md.Phase);
-        }
-
-        return (x, y + u);
+        return (x, y + Displacement(s, tS));
     }
 
     /// <summary>
@@ -127,7 +120,7 @@ internal sealed class SyntheticStringScene
                 Array.Copy(background, (yLo + r) * Width, layer, r * Width, Width);
             }
 
-            DrawString(layer, yLo, bandRows, centres);
+            DrawString(layer, yLo, bandRows, t);
             for (int m = 0; m < MarkCount; m++)
             {
                 if (Hidden.Any(h => h.Mark == m && t >= h.FromS && t < h.ToS))
@@ -153,23 +146,26 @@ internal sealed class SyntheticStringScene
         return truth;
     }
 
-    private void DrawString(float[] layer, int yLo, int rows, (double X, double Y)[] nodes)
+    /// <summary>Transverse displacement of the string at fraction s of its length, px.</summary>
+    public double Displacement(double s, double tS)
     {
-        for (int x = 0; x < Width; x++)
+        double u = 0;
+        for (int n = 0; n < Modes.Length; n++)
         {
-            if (x < nodes[0].X || x > nodes[^1].X)
-            {
-                continue;
-            }
+            var md = Modes[n];
+            u += md.AmplitudePx * Math.Sin((n + 1) * Math.PI * s) * Math.Exp(-md.DecayPerS * tS) * Math.Cos(2 * Math.PI * md.FrequencyHz * tS + md.Phase);
+        }
 
-            int seg = 0;
-            while (seg < nodes.Length - 2 && x > nodes[seg + 1].X)
-            {
-                seg++;
-            }
+        return u;
+    }
 
-            double f = (x - nodes[seg].X) / (nodes[seg + 1].X - nodes[seg].X);
-            double yc = nodes[seg].Y + f * (nodes[seg + 1].Y - nodes[seg].Y);
+    private void DrawString(float[] layer, int yLo, int rows, double tS)
+    {
+        // The string follows the smooth mode shape (not straight segments between marks).
+        for (int x = (int)Math.Ceiling(End0.X); x <= (int)Math.Floor(End1.X); x++)
+        {
+            double s = (x - End0.X) / (End1.X - End0.X);
+            double yc = End0.Y + s * (End1.Y - End0.Y) + Displacement(s, tS);
             for (int r = 0; r < rows; r++)
             {
                 double d = Math.Abs(yLo + r - yc);
