@@ -8,6 +8,17 @@ using StringModes.Video.Tracking;
 // against the exposure-averaged truth (moving marks, frames where the mark is visible and tracked), lost samples,
 // identity swaps (a tracked position nearer another mark's truth than its own), and the tracking/decode throughput ratio.
 // Usage: dotnet run -c Release --project bench/StringModes.Bench.Tracking [seconds]
+if (args.Length == 2 && args[0] == "decode")
+{
+    // Decode-only timing of a clip through the same OpenCV FFmpeg decoder the tracker uses (for bench/performance.sh).
+    var decodeClock = Stopwatch.StartNew();
+    var decoded = 0;
+    using (var capture = new VideoCapture(args[1], VideoCaptureAPIs.FFMPEG))
+    using (var m = new Mat())
+        while (capture.Read(m) && !m.Empty()) decoded++;
+    Console.WriteLine(FormattableString.Invariant($"decode {decoded} frames {decodeClock.Elapsed.TotalSeconds:F3} s"));
+    return;
+}
 var seconds = args.Length > 0 ? double.Parse(args[0], CultureInfo.InvariantCulture) : 1.0;
 string Scene(string camera, int w = 1280, int h = 720, string extra = "") => $$"""
 {
