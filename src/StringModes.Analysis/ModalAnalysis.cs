@@ -29,19 +29,14 @@ public static class ModalAnalysis
         if (modal.ModeCount == 0 || modal.ValidFrameCount == 0)
         {
             var reason = modal.Warnings.Count > 0 ? modal.Warnings[^1] : "no modal coordinates could be formed";
-            return new ModalAnalysisResult(false, $"analysis not possible: {reason}", modal, new ModeFitResult([], [], []), null, start, end, frameRate, warnings);
+            return new ModalAnalysisResult(false, $"analysis not possible: {reason}; check that the marks are tracked in most frames", modal, new ModeFitResult([], [], []), null, start, end, frameRate, warnings);
         }
 
         var fits = ModeFitter.Fit(modal, options.Fitting);
         warnings.AddRange(fits.Warnings);
         var usable = fits.Modes.Where(m => m.IsUsable).ToList();
         if (usable.Count == 0)
-        {
-            var error = fits.Modes.All(m => m.Status == FitStatus.NoSignal)
-                ? "analysis not possible: no vibration was detected in any mode"
-                : "analysis not possible: no mode could be fitted (see warnings)";
-            return new ModalAnalysisResult(false, error, modal, fits, null, start, end, frameRate, warnings);
-        }
+            return new ModalAnalysisResult(false, NothingFitted(fits.Modes), modal, fits, null, start, end, frameRate, warnings);
 
         var forModel = ExcludeAliased(usable, frameRate, warnings);
 
@@ -64,6 +59,20 @@ public static class ModalAnalysis
         });
         warnings.AddRange(estimate.Warnings);
         return new ModalAnalysisResult(true, null, modal, fits, estimate, start, end, frameRate, warnings);
+    }
+
+    // The error must stand on its own (callers show it as one line without the warnings): it carries the reason of
+    // the most telling mode and what to do about it.
+    private static string NothingFitted(IReadOnlyList<ModeFit> modes)
+    {
+        if (modes.All(m => m.Status == FitStatus.NoSignal))
+            return "analysis not possible: no vibration was detected in any mode; check that the string vibrates during the clip (pluck it as recording starts) and that the marks move with it";
+        string Reason(ModeFit m) => m.Warnings.Count > 0 ? $"mode {m.N}: {m.Warnings[0]}" : $"mode {m.N}: {m.Status}";
+        var tooShort = modes.FirstOrDefault(m => m.Status == FitStatus.TooShort);
+        if (tooShort is not null)
+            return $"analysis not possible: the analysis window is too short to fit any mode ({Reason(tooShort)}); record a longer clip (several periods of the fundamental at least) or check the capture rate";
+        var first = modes.FirstOrDefault(m => m.Status != FitStatus.NoSignal) ?? modes[0];
+        return $"analysis not possible: no mode could be fitted ({Reason(first)}); check the tracking of the marks and the capture rate";
     }
 
     private static List<ModeFit> ExcludeAliased(List<ModeFit> usable, double frameRateHz, List<string> warnings)

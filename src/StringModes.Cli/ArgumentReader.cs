@@ -68,9 +68,9 @@ internal sealed class ArgumentReader
         var text = Value(name);
         if (text is null) return null;
         if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) || !double.IsFinite(x))
-            throw Usage($"--{name} must be a number, got '{text}'");
+            throw Usage($"--{name} must be a finite number, got '{text}'{SeeHelp}");
         if (x < min || x > max)
-            throw Usage($"--{name} must be between {min.ToString(CultureInfo.InvariantCulture)} and {max.ToString(CultureInfo.InvariantCulture)}, got {text}");
+            throw Usage($"--{name} must be between {min.ToString(CultureInfo.InvariantCulture)} and {max.ToString(CultureInfo.InvariantCulture)}, got {text}{SeeHelp}");
         return x;
     }
 
@@ -79,10 +79,12 @@ internal sealed class ArgumentReader
         var text = Value(name);
         if (text is null) return null;
         if (!long.TryParse(text, NumberStyles.Integer, CultureInfo.InvariantCulture, out var x))
-            throw Usage($"--{name} must be a whole number, got '{text}'");
-        if (x < min || x > max) throw Usage($"--{name} must be between {min} and {max}, got {text}");
+            throw Usage($"--{name} must be a whole number, got '{text}'{SeeHelp}");
+        if (x < min || x > max) throw Usage($"--{name} must be between {min} and {max}, got {text}{SeeHelp}");
         return x;
     }
+
+    private string SeeHelp => $"; see 'stringmodes {_command} --help'";
 
     public CliException Usage(string message) => new(ExitCodes.Usage, $"stringmodes {_command}: {message}");
 }

@@ -22,6 +22,7 @@ internal sealed class OutputFolder : IDisposable
         {
             Directory.CreateDirectory(parent);
             Staging = Path.Combine(parent, $".{Path.GetFileName(_target)}.partial-{Environment.ProcessId}");
+            PartialOutputs.Register(Staging);
             if (Directory.Exists(Staging)) Directory.Delete(Staging, true);
             Directory.CreateDirectory(Staging);
         }
@@ -36,30 +37,50 @@ internal sealed class OutputFolder : IDisposable
 
     public string File(string name) => Path.Combine(Staging, name);
 
+    /// <summary>True when the target folder exists and holds something (results of an earlier run).</summary>
+    public bool TargetHoldsFiles => Directory.Exists(_target) && Directory.EnumerateFileSystemEntries(_target).Any();
+
     public void Commit()
     {
-        try
+        lock (PartialOutputs.Gate)
         {
             string? old = null;
-            if (Directory.Exists(_target))
+            try
             {
-                old = Path.Combine(Path.GetDirectoryName(_target)!, $".{Path.GetFileName(_target)}.old-{Environment.ProcessId}");
-                Directory.Move(_target, old);
+                if (Directory.Exists(_target))
+                {
+                    old = Path.Combine(Path.GetDirectoryName(_target)!, $".{Path.GetFileName(_target)}.old-{Environment.ProcessId}");
+                    Directory.Move(_target, old);
+                }
+                Directory.Move(Staging, _target);
+                _committed = true;
+                PartialOutputs.Unregister(Staging);
             }
-            Directory.Move(Staging, _target);
-            _committed = true;
-            if (old is not null) Directory.Delete(old, true);
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                // Put the earlier results back if they were moved aside.
+                if (old is not null && !Directory.Exists(_target)) TryMove(old, _target);
+                throw new CliException(ExitCodes.OutputNotWritable, $"{_target}: results could not be moved into place ({e.Message}); check the folder's permissions and free space");
+            }
+            if (old is not null)
+            {
+                try { Directory.Delete(old, true); }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
+            }
         }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new CliException(ExitCodes.OutputNotWritable, $"{_target}: results could not be moved into place ({e.Message})");
-        }
+    }
+
+    private static void TryMove(string from, string to)
+    {
+        try { Directory.Move(from, to); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
     }
 
     public void Dispose()
     {
         if (_committed) return;
         try { if (Directory.Exists(Staging)) Directory.Delete(Staging, true); }
-        catch (IOException) { }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
+        PartialOutputs.Unregister(Staging);
     }
 }

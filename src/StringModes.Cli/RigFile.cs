@@ -32,12 +32,7 @@ internal sealed record Rig
 
     public static Rig Load(string path)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new InputFileException($"{path}: cannot be read ({e.Message}); check the path and its permissions");
-        }
+        var text = InputFiles.ReadText(path, "a rig file", "give a rig file (JSON, at least { }; see docs/rig-file.md)");
         JsonDocument doc;
         try { doc = JsonDocument.Parse(text, new JsonDocumentOptions { AllowTrailingCommas = true, CommentHandling = JsonCommentHandling.Skip }); }
         catch (JsonException e) { throw new InputFileException($"{path}: not valid JSON (line {e.LineNumber + 1}); fix the syntax near there"); }
@@ -48,28 +43,55 @@ internal sealed record Rig
             var rig = new Rig
             {
                 Description = f.OptionalString("description") ?? "",
-                LengthM = f.OptionalQuantity("length", Dimension.Length, 0, true, lengthFix),
-                LengthUncertaintyM = f.OptionalQuantity("length_uncertainty", Dimension.Length, 0, false, lengthFix),
-                LinearDensityKgPerM = f.OptionalQuantity("linear_density", Dimension.LinearDensity, 0, true, "give a linear density such as \"0.987 g/m\" or 0.000987 (kg/m)"),
-                LinearDensityUncertaintyKgPerM = f.OptionalQuantity("linear_density_uncertainty", Dimension.LinearDensity, 0, false, "give a linear density such as \"0.005 g/m\""),
-                SampleMassKg = f.OptionalQuantity("sample_mass", Dimension.Mass, 0, true, "give a mass such as \"1.234 g\""),
-                SampleMassUncertaintyKg = f.OptionalQuantity("sample_mass_uncertainty", Dimension.Mass, 0, false, "give a mass such as \"1 mg\""),
-                SampleLengthM = f.OptionalQuantity("sample_length", Dimension.Length, 0, true, lengthFix),
-                SampleLengthUncertaintyM = f.OptionalQuantity("sample_length_uncertainty", Dimension.Length, 0, false, lengthFix),
-                MaterialDensityKgPerM3 = f.OptionalQuantity("material_density", Dimension.Density, 0, true, "give a density such as \"1.14 g/cm3\""),
-                MaterialDensityUncertaintyKgPerM3 = f.OptionalQuantity("material_density_uncertainty", Dimension.Density, 0, false, "give a density such as \"0.01 g/cm3\""),
-                DiameterM = f.OptionalQuantity("diameter", Dimension.Length, 0, true, lengthFix),
-                DiameterUncertaintyM = f.OptionalQuantity("diameter_uncertainty", Dimension.Length, 0, false, lengthFix),
-                UnstretchedLengthM = f.OptionalQuantity("unstretched_length", Dimension.Length, 0, true, lengthFix),
-                UnstretchedLengthUncertaintyM = f.OptionalQuantity("unstretched_length_uncertainty", Dimension.Length, 0, false, lengthFix),
-                CaptureFps = f.OptionalQuantity("capture_fps", Dimension.Frequency, 0, true, "give the true capture rate in frames per second, e.g. 240"),
-                ReadoutS = f.OptionalQuantity("readout", Dimension.Time, 0, false, "give the rolling-shutter readout time such as \"20 ms\""),
-                MarksPx = f.OptionalPoints("marks_px", "list the marks as [[x, y], ...] in pixels, ends first and last"),
+                LengthM = f.OptionalQuantity("length", Dimension.Length, 0, true, lengthFix, Limits.LengthM),
+                LengthUncertaintyM = f.OptionalQuantity("length_uncertainty", Dimension.Length, 0, false, lengthFix, Limits.LengthM),
+                LinearDensityKgPerM = f.OptionalQuantity("linear_density", Dimension.LinearDensity, 0, true, "give a linear density such as \"0.987 g/m\" or 0.000987 (kg/m)", Limits.LinearDensityKgPerM),
+                LinearDensityUncertaintyKgPerM = f.OptionalQuantity("linear_density_uncertainty", Dimension.LinearDensity, 0, false, "give a linear density such as \"0.005 g/m\"", Limits.LinearDensityKgPerM),
+                SampleMassKg = f.OptionalQuantity("sample_mass", Dimension.Mass, 0, true, "give a mass such as \"1.234 g\"", Limits.MassKg),
+                SampleMassUncertaintyKg = f.OptionalQuantity("sample_mass_uncertainty", Dimension.Mass, 0, false, "give a mass such as \"1 mg\"", Limits.MassKg),
+                SampleLengthM = f.OptionalQuantity("sample_length", Dimension.Length, 0, true, lengthFix, Limits.LengthM),
+                SampleLengthUncertaintyM = f.OptionalQuantity("sample_length_uncertainty", Dimension.Length, 0, false, lengthFix, Limits.LengthM),
+                MaterialDensityKgPerM3 = f.OptionalQuantity("material_density", Dimension.Density, 0, true, "give a density such as \"1.14 g/cm3\"", Limits.DensityKgPerM3),
+                MaterialDensityUncertaintyKgPerM3 = f.OptionalQuantity("material_density_uncertainty", Dimension.Density, 0, false, "give a density such as \"0.01 g/cm3\"", Limits.DensityKgPerM3),
+                DiameterM = f.OptionalQuantity("diameter", Dimension.Length, 0, true, "give a diameter such as \"0.8 mm\"", Limits.DiameterM),
+                DiameterUncertaintyM = f.OptionalQuantity("diameter_uncertainty", Dimension.Length, 0, false, "give a diameter such as \"0.01 mm\"", Limits.DiameterM),
+                UnstretchedLengthM = f.OptionalQuantity("unstretched_length", Dimension.Length, 0, true, lengthFix, Limits.LengthM),
+                UnstretchedLengthUncertaintyM = f.OptionalQuantity("unstretched_length_uncertainty", Dimension.Length, 0, false, lengthFix, Limits.LengthM),
+                CaptureFps = f.OptionalQuantity("capture_fps", Dimension.Frequency, 0, true, "give the true capture rate in frames per second, e.g. 240", Limits.CaptureFps),
+                ReadoutS = f.OptionalQuantity("readout", Dimension.Time, 0, false, "give the rolling-shutter readout time such as \"20 ms\"", Limits.ReadoutS),
+                MarksPx = f.OptionalPoints("marks_px", "list the marks as [[x, y], ...] in pixels, ends first and last", 0, Limits.PixelCoordinate),
             };
             f.RefuseUnknown();
             if (rig.MarksPx is { Count: < 5 })
                 throw new InputFileException($"{path}: marks_px lists {rig.MarksPx.Count} points; give the two ends and at least 3 moving marks, in order along the string");
+            // Half of a pair is not enough to give the linear density; silently ignoring it would lose the tension.
+            Pair(path, rig.SampleMassKg, "sample_mass", rig.SampleLengthM, "sample_length", "μ = sample mass / sample length");
+            Pair(path, rig.MaterialDensityKgPerM3, "material_density", rig.DiameterM, "diameter", "μ = ρπd²/4");
             return rig;
         }
     }
+
+    private static void Pair(string path, double? a, string aName, double? b, string bName, string law)
+    {
+        if (a is not null && b is null)
+            throw new InputFileException($"{path}: {aName} is given without {bName}; give both ({law}) or remove {aName}");
+        if (b is not null && a is null)
+            throw new InputFileException($"{path}: {bName} is given without {aName}; give both ({law}) or remove {bName}");
+    }
+}
+
+/// <summary>
+/// Largest values accepted from a rig file or the command line, in SI units: far beyond any string a camera can film
+/// (a kilometre-long cable, a metre-thick rope, a megahertz camera), so only mistakes and overflows are refused.
+/// </summary>
+internal static class Limits
+{
+    public const double LengthM = 1000;
+    public const double DiameterM = 1;
+    public const double LinearDensityKgPerM = 1000;
+    public const double MassKg = 1000;
+    public const double DensityKgPerM3 = 100_000;
+    public const double CaptureFps = 1e6;
+    public const double ReadoutS = 1;
+    public const double PixelCoordinate = 100_000;
 }

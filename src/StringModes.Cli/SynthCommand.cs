@@ -31,6 +31,8 @@ internal sealed class SynthCommand(App app)
         catch (InputFileException e) { throw new CliException(ExitCodes.BadInput, e.Message); }
 
         SynthesisResult result;
+        var temporary = ClipSynthesiser.TemporaryPath(clip);
+        PartialOutputs.Register(temporary);
         try
         {
             result = ClipSynthesiser.Run(scene, clip, options, a.Positionals[0],
@@ -39,6 +41,10 @@ internal sealed class SynthCommand(App app)
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             throw new CliException(ExitCodes.OutputNotWritable, e.Message.Split('\n')[0]);
+        }
+        finally
+        {
+            PartialOutputs.Unregister(temporary);
         }
         var fps = result.Frames / Math.Max(1e-9, result.RenderSeconds);
         if (a.Flag("json"))

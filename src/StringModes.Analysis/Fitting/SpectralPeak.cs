@@ -42,6 +42,15 @@ internal static class SpectralPeak
         double mean = 0;
         foreach (var v in samples) mean += v;
         mean /= n;
+        // A series constant to rounding (identical frames, a mark that never moves) holds no tone: without this test
+        // the rounding error of its mean, shaped by the window, would show as a spurious peak at the lowest bin.
+        double spread = 0, scale = 0;
+        foreach (var v in samples)
+        {
+            spread = Math.Max(spread, Math.Abs(v - mean));
+            scale = Math.Max(scale, Math.Abs(v));
+        }
+        if (!(spread > 1e-9 * scale)) return new PeakEstimate(0, 0);
         var buffer = new Complex[size];
         for (var i = 0; i < n; i++)
         {

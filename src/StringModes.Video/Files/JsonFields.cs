@@ -76,8 +76,11 @@ public sealed class JsonFields
         return x;
     }
 
-    /// <summary>A quantity written as an SI number or as text with a unit ("65 cm"); returns the SI value.</summary>
-    public double? OptionalQuantity(string name, StringModes.Analysis.Units.Dimension dimension, double min, bool minExclusive, string fix)
+    /// <summary>
+    /// A quantity written as an SI number or as text with a unit ("65 cm"); returns the SI value, which must be
+    /// finite, above <paramref name="min"/> and at most <paramref name="max"/> (SI units).
+    /// </summary>
+    public double? OptionalQuantity(string name, StringModes.Analysis.Units.Dimension dimension, double min, bool minExclusive, string fix, double max = double.PositiveInfinity)
     {
         var v = Get(name);
         if (v is null) return null;
@@ -89,13 +92,19 @@ public sealed class JsonFields
         }
         else if (v.Value.ValueKind == JsonValueKind.Number && v.Value.TryGetDouble(out x)) { }
         else throw Error(Field(name), $"must be a number in SI units or text with a unit, got {Kind(v.Value)}", fix);
-        if (!double.IsFinite(x) || (minExclusive ? x <= min : x < min))
-            throw Error(Field(name), $"must be {(minExclusive ? ">" : "≥")} {min.ToString("G", System.Globalization.CultureInfo.InvariantCulture)} and finite", fix);
+        if (!double.IsFinite(x) || (minExclusive ? x <= min : x < min) || x > max)
+        {
+            var ic = System.Globalization.CultureInfo.InvariantCulture;
+            var unit = StringModes.Analysis.Units.Quantity.SiUnit(dimension);
+            var upper = double.IsPositiveInfinity(max) ? "" : $" and ≤ {max.ToString("G", ic)} {unit}";
+            var got = double.IsFinite(x) ? $", got {x.ToString("G", ic)} {unit}" : "";
+            throw Error(Field(name), $"must be {(minExclusive ? ">" : "≥")} {min.ToString("G", ic)}{upper} and finite{got}", fix);
+        }
         return x;
     }
 
-    /// <summary>An optional array of [x, y] pixel points.</summary>
-    public IReadOnlyList<PixelPoint>? OptionalPoints(string name, string fix)
+    /// <summary>An optional array of [x, y] pixel points, each coordinate in [<paramref name="min"/>, <paramref name="max"/>].</summary>
+    public IReadOnlyList<PixelPoint>? OptionalPoints(string name, string fix, double min = double.NegativeInfinity, double max = double.PositiveInfinity)
     {
         var v = Get(name);
         if (v is null) return null;
@@ -106,7 +115,7 @@ public sealed class JsonFields
         {
             var field = $"{Field(name)}[{i++}]";
             if (e.ValueKind != JsonValueKind.Array || e.GetArrayLength() != 2) throw Error(field, "must be [x, y]", fix);
-            var xy = e.EnumerateArray().Select(c => CheckNumber(field, c, double.NegativeInfinity, double.PositiveInfinity, false, fix)).ToArray();
+            var xy = e.EnumerateArray().Select(c => CheckNumber(field, c, min, max, false, fix)).ToArray();
             points.Add(new PixelPoint(xy[0], xy[1]));
         }
         return points;

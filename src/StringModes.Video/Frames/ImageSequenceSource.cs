@@ -41,15 +41,17 @@ public sealed partial class ImageSequenceSource : IFrameSource
     public int DeclaredFrameCount => _files.Length;
     public IReadOnlyList<string> Warnings => [];
 
-    private Mat Load(string file)
+    private static Mat Load(string file)
     {
+        // Checked before decoding: a named pipe among the frames would block the decoder for ever.
+        InputFiles.RequireReadable(file, "an image", "replace or remove it");
         Mat m;
         try { m = Cv2.ImRead(file, ImreadModes.Unchanged); }
         catch (OpenCVException) { m = new Mat(); }
         if (m.Empty())
         {
             m.Dispose();
-            throw new InputFileException($"{file}: not a readable image; replace or remove it");
+            throw new InputFileException($"{file}: not a readable image (damaged, or a format or size the decoder refuses); replace or remove it");
         }
         return m;
     }

@@ -18,23 +18,12 @@ public sealed class VideoFileSource : IFrameSource
     public VideoFileSource(string path)
     {
         Path = path;
-        if (!File.Exists(path))
-            throw new InputFileException($"{path}: no such file; check the path");
-        try
-        {
-            using (File.OpenRead(path)) { }
-        }
-        catch (UnauthorizedAccessException)
-        {
-            throw new InputFileException($"{path}: permission denied; make the file readable (chmod +r) or copy it");
-        }
-        if (new FileInfo(path).Length == 0)
-            throw new InputFileException($"{path}: the file is empty; record or copy the clip again");
+        InputFiles.RequireReadable(path, "a video file", "record or copy the clip again");
         _capture = new VideoCapture(path, VideoCaptureAPIs.FFMPEG);
         if (!_capture.IsOpened())
         {
             _capture.Dispose();
-            throw new InputFileException($"{path}: not a readable video (unknown container or codec, or damaged); convert it to H.264 MP4 or export an image sequence");
+            throw new InputFileException($"{path}: not a readable video (unknown container or codec, or damaged or cut short: a recording stopped early has no index); copy it again from the camera, or convert it to H.264 MP4 or an image sequence");
         }
         WidthPx = _capture.FrameWidth;
         HeightPx = _capture.FrameHeight;

@@ -43,6 +43,9 @@ public static class ClipSynthesiser
         return Path.Combine(Path.GetDirectoryName(trimmed) ?? "", Path.GetFileNameWithoutExtension(trimmed));
     }
 
+    /// <summary>The hidden path a clip for <paramref name="clipPath"/> is written to before it is moved into place (for clean-up after a forced exit).</summary>
+    public static string TemporaryPath(string clipPath) => ClipWriter.TemporaryPathFor(clipPath);
+
     /// <summary>Renders and writes the clip and truth files; nothing is left behind if it fails or is cancelled.</summary>
     public static SynthesisResult Run(Scene scene, string clipPath, SynthesisOptions options, string sceneFileName,
         IProgress<double>? progress = null, CancellationToken cancel = default)

@@ -24,10 +24,8 @@ internal sealed class ClipWriter : IDisposable
         _target = Path.GetFullPath(target.TrimEnd('/', '\\'));
         _w = widthPx;
         _h = heightPx;
-        var dir = Path.GetDirectoryName(_target)!;
-        Directory.CreateDirectory(dir);
-        var name = Path.GetFileName(_target);
-        _temporary = Path.Combine(dir, $".{name}.partial-{Environment.ProcessId}{Path.GetExtension(_target)}");
+        Directory.CreateDirectory(Path.GetDirectoryName(_target)!);
+        _temporary = TemporaryPathFor(target);
         if (format.IsSequence())
         {
             if (Directory.Exists(_temporary)) Directory.Delete(_temporary, true);
@@ -46,6 +44,13 @@ internal sealed class ClipWriter : IDisposable
             throw new IOException($"{target}: OpenCV could not open a {format} writer; check the folder is writable and the extension matches the format");
         _video.Set(VideoWriterProperties.Quality, quality);
         _frame = new Mat(heightPx, widthPx, MatType.CV_8UC3);
+    }
+
+    /// <summary>The hidden path the clip for <paramref name="target"/> is written to before <see cref="Commit"/>.</summary>
+    public static string TemporaryPathFor(string target)
+    {
+        var full = Path.GetFullPath(target.TrimEnd('/', '\\'));
+        return Path.Combine(Path.GetDirectoryName(full)!, $".{Path.GetFileName(full)}.partial-{Environment.ProcessId}{Path.GetExtension(full)}");
     }
 
     /// <summary>Quantises an RGB float frame (DN 0–255) and appends it.</summary>

@@ -13,12 +13,7 @@ public static class SceneFile
     /// <summary>Reads and validates the scene file at <paramref name="path"/>.</summary>
     public static Scene Load(string path)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new InputFileException($"{path}: cannot be read ({e.Message}); check the path and its permissions");
-        }
+        var text = InputFiles.ReadText(path, "a scene file", "give a scene file (JSON; see docs/scene-file.md)");
         return Parse(text, path);
     }
 

@@ -1,0 +1,121 @@
+using System.Runtime.InteropServices;
+
+namespace StringModes.Cli;
+
+/// <summary>
+/// Hidden work-in-progress paths of this process (output staging folders, a clip being written) that must not
+/// outlive it. Commands register them while they exist; a forced exit deletes whatever is still registered.
+/// </summary>
+internal static class PartialOutputs
+{
+    private static readonly HashSet<string> Paths = new(StringComparer.Ordinal);
+
+    /// <summary>Held while outputs are moved into place, so that a forced exit never lands between two renames.</summary>
+    public static readonly object Gate = new();
+
+    public static void Register(string path)
+    {
+        lock (Gate) Paths.Add(path);
+    }
+
+    public static void Unregister(string path)
+    {
+        lock (Gate) Paths.Remove(path);
+    }
+
+    /// <summary>Deletes every registered path (best effort). The caller holds <see cref="Gate"/>.</summary>
+    public static void DeleteAll()
+    {
+        foreach (var p in Paths)
+        {
+            try
+            {
+                if (Directory.Exists(p)) Directory.Delete(p, true);
+                else if (File.Exists(p)) File.Delete(p);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+            }
+        }
+        Paths.Clear();
+    }
+}
+
+/// <summary>
+/// Turns SIGINT (Ctrl-C) and SIGTERM into cancellation of the running command, which stops at its next check, removes
+/// its staging folder and returns exit code 130. A command that has not returned within <see cref="Grace"/> of the
+/// first signal (blocked in a read, or inside a step that does not check), or a second signal, makes the process
+/// delete what <see cref="PartialOutputs"/> holds and exit with 130 itself: an interrupt is always prompt and never
+/// leaves partial files.
+/// </summary>
+internal sealed class Interruption : IDisposable
+{
+    /// <summary>How long the command gets to stop by itself after the first signal.</summary>
+    public static readonly TimeSpan Grace = TimeSpan.FromSeconds(1.5);
+
+    private readonly CancellationTokenSource _cancel;
+    private readonly TextWriter _error;
+    private readonly Action<int> _exit;
+    private readonly TimeSpan _grace;
+    private readonly List<PosixSignalRegistration> _registrations = [];
+    private Timer? _timer;
+    private int _signals;
+    private bool _finished;
+
+    /// <param name="cancel">Cancelled at the first signal.</param>
+    /// <param name="error">Where the forced exit writes its one line.</param>
+    /// <param name="exit">Ends the process (Environment.Exit; replaceable for tests).</param>
+    /// <param name="grace">Default <see cref="Grace"/>.</param>
+    /// <param name="listen">Register for SIGINT and SIGTERM (false in tests, which call <see cref="Signal"/>).</param>
+    public Interruption(CancellationTokenSource cancel, TextWriter error, Action<int> exit, TimeSpan? grace = null, bool listen = true)
+    {
+        _cancel = cancel;
+        _error = error;
+        _exit = exit;
+        _grace = grace ?? Grace;
+        if (!listen) return;
+        foreach (var s in new[] { PosixSignal.SIGINT, PosixSignal.SIGTERM })
+            _registrations.Add(PosixSignalRegistration.Create(s, c =>
+            {
+                c.Cancel = true;
+                Signal();
+            }));
+    }
+
+    /// <summary>A signal arrived.</summary>
+    public void Signal()
+    {
+        if (Interlocked.Increment(ref _signals) == 1)
+        {
+            _timer = new Timer(_ => ForceExit(), null, _grace, Timeout.InfiniteTimeSpan);
+            try { _cancel.Cancel(); }
+            catch (AggregateException) { }
+        }
+        else ForceExit();
+    }
+
+    /// <summary>The command returned: no forced exit any more.</summary>
+    public void Finished()
+    {
+        lock (PartialOutputs.Gate) _finished = true;
+    }
+
+    private void ForceExit()
+    {
+        lock (PartialOutputs.Gate)
+        {
+            if (_finished) return;
+            _finished = true;
+            PartialOutputs.DeleteAll();
+            _error.WriteLine("stringmodes: interrupted; no partial outputs were kept");
+            _error.Flush();
+            _exit(ExitCodes.Interrupted);
+        }
+    }
+
+    public void Dispose()
+    {
+        _timer?.Dispose();
+        foreach (var r in _registrations) r.Dispose();
+    }
+}
