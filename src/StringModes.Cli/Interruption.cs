@@ -6,27 +6,41 @@ namespace StringModes.Cli;
 /// Hidden work-in-progress paths of this process (output staging folders, a clip being written) that must not
 /// outlive it. Commands register them while they exist; a forced exit deletes whatever is still registered.
 /// </summary>
-internal static class PartialOutputs
+internal sealed class PartialOutputs
 {
-    private static readonly HashSet<string> Paths = new(StringComparer.Ordinal);
+    private readonly HashSet<string> _paths = new(StringComparer.Ordinal);
+
+    /// <summary>The process's registry.</summary>
+    public static PartialOutputs Process { get; } = new();
 
     /// <summary>Held while outputs are moved into place, so that a forced exit never lands between two renames.</summary>
-    public static readonly object Gate = new();
+    public object Gate { get; } = new();
 
-    public static void Register(string path)
+    private volatile bool _interrupted;
+
+    /// <summary>True once a signal has arrived: from then on nothing more is moved into place.</summary>
+    public bool Interrupted => _interrupted;
+
+    /// <summary>Records the interrupt (under <see cref="Gate"/>, so that a commit in progress completes first).</summary>
+    public void Interrupt()
     {
-        lock (Gate) Paths.Add(path);
+        lock (Gate) _interrupted = true;
     }
 
-    public static void Unregister(string path)
+    public void Register(string path)
     {
-        lock (Gate) Paths.Remove(path);
+        lock (Gate) _paths.Add(path);
+    }
+
+    public void Unregister(string path)
+    {
+        lock (Gate) _paths.Remove(path);
     }
 
     /// <summary>Deletes every registered path (best effort). The caller holds <see cref="Gate"/>.</summary>
-    public static void DeleteAll()
+    public void DeleteAll()
     {
-        foreach (var p in Paths)
+        foreach (var p in _paths)
         {
             try
             {
@@ -37,7 +51,7 @@ internal static class PartialOutputs
             {
             }
         }
-        Paths.Clear();
+        _paths.Clear();
     }
 }
 
@@ -54,6 +68,7 @@ internal sealed class Interruption : IDisposable
     public static readonly TimeSpan Grace = TimeSpan.FromSeconds(1.5);
 
     private readonly CancellationTokenSource _cancel;
+    private readonly PartialOutputs _partial;
     private readonly TextWriter _error;
     private readonly Action<int> _exit;
     private readonly TimeSpan _grace;
@@ -63,13 +78,15 @@ internal sealed class Interruption : IDisposable
     private bool _finished;
 
     /// <param name="cancel">Cancelled at the first signal.</param>
+    /// <param name="partial">What a forced exit deletes (<see cref="PartialOutputs.Process"/>).</param>
     /// <param name="error">Where the forced exit writes its one line.</param>
     /// <param name="exit">Ends the process (Environment.Exit; replaceable for tests).</param>
     /// <param name="grace">Default <see cref="Grace"/>.</param>
     /// <param name="listen">Register for SIGINT and SIGTERM (false in tests, which call <see cref="Signal"/>).</param>
-    public Interruption(CancellationTokenSource cancel, TextWriter error, Action<int> exit, TimeSpan? grace = null, bool listen = true)
+    public Interruption(CancellationTokenSource cancel, PartialOutputs partial, TextWriter error, Action<int> exit, TimeSpan? grace = null, bool listen = true)
     {
         _cancel = cancel;
+        _partial = partial;
         _error = error;
         _exit = exit;
         _grace = grace ?? Grace;
@@ -85,6 +102,7 @@ internal sealed class Interruption : IDisposable
     /// <summary>A signal arrived.</summary>
     public void Signal()
     {
+        _partial.Interrupt();
         if (Interlocked.Increment(ref _signals) == 1)
         {
             _timer = new Timer(_ => ForceExit(), null, _grace, Timeout.InfiniteTimeSpan);
@@ -97,16 +115,16 @@ internal sealed class Interruption : IDisposable
     /// <summary>The command returned: no forced exit any more.</summary>
     public void Finished()
     {
-        lock (PartialOutputs.Gate) _finished = true;
+        lock (_partial.Gate) _finished = true;
     }
 
     private void ForceExit()
     {
-        lock (PartialOutputs.Gate)
+        lock (_partial.Gate)
         {
             if (_finished) return;
             _finished = true;
-            PartialOutputs.DeleteAll();
+            _partial.DeleteAll();
             _error.WriteLine("stringmodes: interrupted; no partial outputs were kept");
             _error.Flush();
             _exit(ExitCodes.Interrupted);

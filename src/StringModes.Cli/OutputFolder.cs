@@ -22,7 +22,7 @@ internal sealed class OutputFolder : IDisposable
         {
             Directory.CreateDirectory(parent);
             Staging = Path.Combine(parent, $".{Path.GetFileName(_target)}.partial-{Environment.ProcessId}");
-            PartialOutputs.Register(Staging);
+            PartialOutputs.Process.Register(Staging);
             if (Directory.Exists(Staging)) Directory.Delete(Staging, true);
             Directory.CreateDirectory(Staging);
         }
@@ -42,8 +42,10 @@ internal sealed class OutputFolder : IDisposable
 
     public void Commit()
     {
-        lock (PartialOutputs.Gate)
+        lock (PartialOutputs.Process.Gate)
         {
+            // A signal that came while the last outputs were being written still wins: nothing is put in place.
+            if (PartialOutputs.Process.Interrupted) throw new OperationCanceledException("interrupted before the outputs were moved into place");
             string? old = null;
             try
             {
@@ -54,7 +56,7 @@ internal sealed class OutputFolder : IDisposable
                 }
                 Directory.Move(Staging, _target);
                 _committed = true;
-                PartialOutputs.Unregister(Staging);
+                PartialOutputs.Process.Unregister(Staging);
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
@@ -81,6 +83,6 @@ internal sealed class OutputFolder : IDisposable
         if (_committed) return;
         try { if (Directory.Exists(Staging)) Directory.Delete(Staging, true); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
-        PartialOutputs.Unregister(Staging);
+        PartialOutputs.Process.Unregister(Staging);
     }
 }

@@ -10,7 +10,7 @@ internal static class Program
         using var cancel = new CancellationTokenSource();
         var app = new App(Console.Out, Console.Error, Environment.GetEnvironmentVariable("NO_COLOR") is { Length: > 0 },
             !Console.IsErrorRedirected);
-        using var interruption = new Interruption(cancel, Console.Error, Environment.Exit);
+        using var interruption = new Interruption(cancel, PartialOutputs.Process, Console.Error, Environment.Exit);
         var code = app.Run(args, cancel.Token);
         interruption.Finished();
         return code;

@@ -32,7 +32,7 @@ internal sealed class SynthCommand(App app)
 
         SynthesisResult result;
         var temporary = ClipSynthesiser.TemporaryPath(clip);
-        PartialOutputs.Register(temporary);
+        PartialOutputs.Process.Register(temporary);
         try
         {
             result = ClipSynthesiser.Run(scene, clip, options, a.Positionals[0],
@@ -44,7 +44,7 @@ internal sealed class SynthCommand(App app)
         }
         finally
         {
-            PartialOutputs.Unregister(temporary);
+            PartialOutputs.Process.Unregister(temporary);
         }
         var fps = result.Frames / Math.Max(1e-9, result.RenderSeconds);
         if (a.Flag("json"))
