@@ -20,7 +20,7 @@ public static class ExitCodes
 }
 
 /// <summary>An error a user can fix; carries its exit code and a one-line message.</summary>
-public sealed class CliException(int exitCode, string message) : Exception(message)
+public sealed class CliException(int exitCode, string message) : Exception(Video.Files.InputFileException.OneLine(message))
 {
     /// <summary>The process exit code.</summary>
     public int ExitCode { get; } = exitCode;

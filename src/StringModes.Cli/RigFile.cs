@@ -31,8 +31,11 @@ internal sealed record Rig
     public IReadOnlyList<PixelPoint>? MarksPx { get; init; }
 
     public static Rig Load(string path)
+        => Parse(InputFiles.ReadText(path, "a rig file", "give a rig file (JSON, at least { }; see docs/rig-file.md)"), path);
+
+    /// <summary>Parses and validates rig-file text; <paramref name="path"/> names the file in messages.</summary>
+    public static Rig Parse(string text, string path)
     {
-        var text = InputFiles.ReadText(path, "a rig file", "give a rig file (JSON, at least { }; see docs/rig-file.md)");
         JsonDocument doc;
         try { doc = JsonDocument.Parse(text, new JsonDocumentOptions { AllowTrailingCommas = true, CommentHandling = JsonCommentHandling.Skip }); }
         catch (JsonException e) { throw new InputFileException($"{path}: not valid JSON (line {e.LineNumber + 1}); fix the syntax near there"); }

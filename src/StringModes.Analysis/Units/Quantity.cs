@@ -52,13 +52,13 @@ public static class Quantity
         var split = NumberLength(s);
         if (split == 0)
         {
-            error = $"'{s}' is not a {name}: expected a number optionally followed by one of the units {accepted}";
+            error = $"'{Shown(s)}' is not a {name}: expected a number optionally followed by one of the units {accepted}";
             return false;
         }
 
         if (!double.TryParse(s[..split], NumberStyles.Float, CultureInfo.InvariantCulture, out var value) || !double.IsFinite(value))
         {
-            error = $"'{s}' is not a finite {name}: expected a number optionally followed by one of the units {accepted}";
+            error = $"'{Shown(s)}' is not a finite {name}: expected a number optionally followed by one of the units {accepted}";
             return false;
         }
 
@@ -77,15 +77,25 @@ public static class Quantity
             if (!double.IsFinite(si))
             {
                 si = 0;
-                error = $"'{s}' is out of range for a {name}";
+                error = $"'{Shown(s)}' is out of range for a {name}";
                 return false;
             }
             error = "";
             return true;
         }
 
-        error = $"unknown unit '{unit}' for a {name} in '{s}': accepted units are {accepted} (a plain number is {SiUnit(expected)})";
+        error = $"unknown unit '{Shown(unit)}' for a {name} in '{Shown(s)}': accepted units are {accepted} (a plain number is {SiUnit(expected)})";
         return false;
+    }
+
+    // What the user typed, quoted in a one-line message: control characters (a pasted newline) as \u escapes,
+    // and at most 60 characters.
+    private static string Shown(string text)
+    {
+        var clipped = text.Length > 60 ? text[..57] + "..." : text;
+        return string.Concat(clipped.Select(c => char.IsControl(c) || char.GetUnicodeCategory(c) is UnicodeCategory.LineSeparator or UnicodeCategory.ParagraphSeparator
+            ? "\\u" + ((int)c).ToString("X4", CultureInfo.InvariantCulture)
+            : c.ToString()));
     }
 
     /// <summary>Length of the leading numeric part (sign, digits, decimal point, exponent) of <paramref name="s"/>.</summary>

@@ -87,7 +87,7 @@ public sealed class JsonFields
         double x;
         if (v.Value.ValueKind == JsonValueKind.String)
         {
-            if (!StringModes.Analysis.Units.Quantity.TryParse(v.Value.GetString(), dimension, out x, out var error))
+            if (!StringModes.Analysis.Units.Quantity.TryParse(Text(Field(name), v.Value), dimension, out x, out var error))
                 throw Error(Field(name), error, fix);
         }
         else if (v.Value.ValueKind == JsonValueKind.Number && v.Value.TryGetDouble(out x)) { }
@@ -139,7 +139,14 @@ public sealed class JsonFields
         if (v is null) return null;
         if (v.Value.ValueKind != JsonValueKind.String)
             throw Error(Field(name), $"must be a string, got {Kind(v.Value)}", "put the text in double quotes");
-        return v.Value.GetString();
+        return Text(Field(name), v.Value);
+    }
+
+    // JSON may escape half of a UTF-16 surrogate pair ("\uD800"), which is valid JSON but no text.
+    private string Text(string field, JsonElement v)
+    {
+        try { return v.GetString() ?? ""; }
+        catch (InvalidOperationException) { throw Error(field, "holds an invalid character escape (half of a \\uD800-style surrogate pair)", "retype the text"); }
     }
 
     public double[]? OptionalNumbers(string name, int? exactCount, double min, double max, bool minExclusive, string fix)
