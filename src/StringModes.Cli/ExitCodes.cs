@@ -1,6 +1,6 @@
 namespace StringModes.Cli;
 
-/// <summary>Process exit codes, documented in --help and docs/cli.md.</summary>
+/// <summary>Process exit codes, documented in --help (<see cref="HelpText.ExitCodeTable"/>) and used in docs/reliability.md.</summary>
 public static class ExitCodes
 {
     /// <summary>Success.</summary>

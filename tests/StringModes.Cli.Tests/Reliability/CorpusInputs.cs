@@ -147,6 +147,9 @@ internal sealed class CorpusInputs
 
     // ---- image folders ---------------------------------------------------------------------------------------------
 
+    // Lossless like any PNG; the lowest compression level only makes the files larger and the writing fast.
+    private static readonly ImageEncodingParam[] FastPng = [new(ImwriteFlags.PngCompression, 1)];
+
     /// <summary>A folder of the good clip's frames passed through <paramref name="edit"/> (frame index, image in place).</summary>
     public string Frames(string name, Action<int, Mat>? edit = null, int count = -1)
     {
@@ -158,7 +161,7 @@ internal sealed class CorpusInputs
             if (edit is null) { File.Copy(frames[k], target); continue; }
             using var m = Cv2.ImRead(frames[k], ImreadModes.Unchanged);
             edit(k, m);
-            Cv2.ImWrite(target, m);
+            Cv2.ImWrite(target, m, FastPng);
         }
         return name;
     }
@@ -176,7 +179,7 @@ internal sealed class CorpusInputs
                 for (var j = 0; j < span; j++) Cv2.Add(sum, images[k + j], sum);
                 using var mean = new Mat();
                 sum.ConvertTo(mean, MatType.CV_8UC3, 1.0 / span);
-                Cv2.ImWrite(Path.Combine(folder, Path.GetFileName(_frames[k])), mean);
+                Cv2.ImWrite(Path.Combine(folder, Path.GetFileName(_frames[k])), mean, FastPng);
             }
         }
         finally
@@ -191,7 +194,7 @@ internal sealed class CorpusInputs
     {
         var folder = Directory.CreateDirectory(Full(name)).FullName;
         using var plain = new Mat(height, width, MatType.CV_8UC3, Scalar.All(150));
-        for (var k = 0; k < count; k++) Cv2.ImWrite(Path.Combine(folder, $"frame_{k:D6}.png"), plain);
+        for (var k = 0; k < count; k++) Cv2.ImWrite(Path.Combine(folder, $"frame_{k:D6}.png"), plain, FastPng);
         return name;
     }
 

@@ -36,7 +36,6 @@ public sealed class LongClipFixture : IDisposable
 /// SIGINT and SIGTERM during a long analysis, sent to the real process: it exits promptly with 130, says so in one
 /// line, leaves no output, no staging folder and an existing output untouched; the same command then succeeds.
 /// </summary>
-[Collection("small clip")]
 public class InterruptTests(LongClipFixture clip) : IClassFixture<LongClipFixture>
 {
     private const int SigInt = 2, SigTerm = 15;
