@@ -13,7 +13,11 @@ public sealed class SmallClipFixture : IDisposable
         File.WriteAllText(_temp.File("scene.json"), Scenes.Small);
         Clip = _temp.File("small");
         var synth = Cli.Run("synth", _temp.File("scene.json"), "--out", Clip, "--seed", "5");
-        if (synth.ExitCode != 0) throw new InvalidOperationException("synth failed: " + synth);
+        if (synth.ExitCode != 0)
+        {
+            _temp.Dispose(); // a fixture whose constructor throws is never disposed
+            throw new InvalidOperationException("synth failed: " + synth);
+        }
         Truth = File.ReadAllText(_temp.File("small.truth.json"));
         ResultsDir = _temp.File("results");
         Analysis = Cli.Run(AnalyzeArgs(ResultsDir));

@@ -26,24 +26,34 @@ internal sealed class ClipWriter : IDisposable
         _h = heightPx;
         Directory.CreateDirectory(Path.GetDirectoryName(_target)!);
         _temporary = TemporaryPathFor(target);
-        if (format.IsSequence())
+        // A constructor that throws is never disposed: whatever it created is removed here.
+        try
         {
-            if (Directory.Exists(_temporary)) Directory.Delete(_temporary, true);
-            Directory.CreateDirectory(_temporary);
-            _frame = new Mat(heightPx, widthPx, format == ClipFormat.Tiff16Sequence ? MatType.CV_16UC3 : MatType.CV_8UC3);
-            return;
+            if (format.IsSequence())
+            {
+                if (Directory.Exists(_temporary)) Directory.Delete(_temporary, true);
+                Directory.CreateDirectory(_temporary);
+                _frame = new Mat(heightPx, widthPx, format == ClipFormat.Tiff16Sequence ? MatType.CV_16UC3 : MatType.CV_8UC3);
+                return;
+            }
+            var fourcc = format switch
+            {
+                ClipFormat.Ffv1 => VideoWriter.FourCC('F', 'F', 'V', '1'),
+                ClipFormat.Mpeg4 => VideoWriter.FourCC('m', 'p', '4', 'v'),
+                _ => VideoWriter.FourCC('M', 'J', 'P', 'G'),
+            };
+            _video = new VideoWriter(_temporary, VideoCaptureAPIs.FFMPEG, fourcc, containerFps, new Size(widthPx, heightPx), true);
+            if (!_video.IsOpened())
+                throw new IOException($"{target}: OpenCV could not open a {format} writer; check the folder is writable and the extension matches the format");
+            _video.Set(VideoWriterProperties.Quality, quality);
+            _frame = new Mat(heightPx, widthPx, MatType.CV_8UC3);
         }
-        var fourcc = format switch
+        catch
         {
-            ClipFormat.Ffv1 => VideoWriter.FourCC('F', 'F', 'V', '1'),
-            ClipFormat.Mpeg4 => VideoWriter.FourCC('m', 'p', '4', 'v'),
-            _ => VideoWriter.FourCC('M', 'J', 'P', 'G'),
-        };
-        _video = new VideoWriter(_temporary, VideoCaptureAPIs.FFMPEG, fourcc, containerFps, new Size(widthPx, heightPx), true);
-        if (!_video.IsOpened())
-            throw new IOException($"{target}: OpenCV could not open a {format} writer; check the folder is writable and the extension matches the format");
-        _video.Set(VideoWriterProperties.Quality, quality);
-        _frame = new Mat(heightPx, widthPx, MatType.CV_8UC3);
+            _video?.Dispose();
+            RemoveTemporary();
+            throw;
+        }
     }
 
     /// <summary>The hidden path the clip for <paramref name="target"/> is written to before <see cref="Commit"/>.</summary>
@@ -112,12 +122,17 @@ internal sealed class ClipWriter : IDisposable
         _video?.Dispose();
         _frame.Dispose();
         if (_committed) return;
+        RemoveTemporary();
+    }
+
+    private void RemoveTemporary()
+    {
         try
         {
             if (Directory.Exists(_temporary)) Directory.Delete(_temporary, true);
             else if (File.Exists(_temporary)) File.Delete(_temporary);
         }
-        catch (IOException)
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             // Best effort: a leftover temporary file is hidden and named as partial.
         }

@@ -17,7 +17,11 @@ public sealed class LongClipFixture : IDisposable
             .Replace("\"decay_rate_per_s\": 3.0", "\"decay_rate_per_s\": 0", StringComparison.Ordinal);
         File.WriteAllText(_temp.File("loop.json"), scene);
         var synth = Cli.Run("synth", _temp.File("loop.json"), "--out", _temp.File("loop"), "--seed", "9");
-        if (synth.ExitCode != 0) throw new InvalidOperationException("synth failed: " + synth);
+        if (synth.ExitCode != 0)
+        {
+            _temp.Dispose();
+            throw new InvalidOperationException("synth failed: " + synth);
+        }
         var frames = Directory.GetFiles(_temp.File("loop"), "*.png").Order(StringComparer.Ordinal).ToArray();
         Directory.CreateDirectory(_temp.File("long"));
         for (var k = 0; k < FrameCount; k++)
