@@ -54,6 +54,15 @@ public sealed partial class ImageSequenceSource : IFrameSource
         return m;
     }
 
+    /// <inheritdoc/>
+    public bool TrySkipTo(int index)
+    {
+        if (index < 0 || index >= _files.Length) return false;
+        _next = index;
+        return true;
+    }
+
+    /// <inheritdoc/>
     public bool Read(out Mat frame, out double timestampS)
     {
         timestampS = _next / _fps;

@@ -56,6 +56,25 @@ public sealed class VideoFileSource : IFrameSource
     public int DeclaredFrameCount { get; }
     public IReadOnlyList<string> Warnings => _warnings;
 
+    /// <inheritdoc/>
+    public bool TrySkipTo(int index)
+    {
+        if (_read != 0 || index <= 0 || (DeclaredFrameCount > 0 && index >= DeclaredFrameCount)) return false;
+        // The backend seeks to the key frame before the target and decodes forward to it; a failed seek leaves the
+        // capture at the start, which is checked by reading the position back.
+        bool ok;
+        try { ok = _capture.Set(VideoCaptureProperties.PosFrames, index) && (int)Math.Round(_capture.Get(VideoCaptureProperties.PosFrames)) == index; }
+        catch (OpenCVException) { ok = false; }
+        if (!ok)
+        {
+            try { _capture.Set(VideoCaptureProperties.PosFrames, 0); } catch (OpenCVException) { }
+            return false;
+        }
+        _read = index;
+        return true;
+    }
+
+    /// <inheritdoc/>
     public bool Read(out Mat frame, out double timestampS)
     {
         frame = _frame;
