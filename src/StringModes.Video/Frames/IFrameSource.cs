@@ -27,6 +27,9 @@ public interface IFrameSource : IDisposable
     /// <summary>Reads the next frame; false at the end of the clip (or at damage, see <see cref="Warnings"/>).</summary>
     bool Read(out Mat frame, out double timestampS);
 
+    /// <summary>Reads the next frame into <paramref name="target"/> (reallocated only when its size or type differs); false at the end.</summary>
+    bool ReadInto(Mat target, out double timestampS);
+
     /// <summary>
     /// Moves so that the next <see cref="Read"/> returns frame <paramref name="index"/> without decoding the frames
     /// before it where the format allows (a video seeks to the nearest key frame and decodes from there).

@@ -85,6 +85,14 @@ public sealed partial class ImageSequenceSource : IFrameSource
         return true;
     }
 
+    /// <inheritdoc/>
+    public bool ReadInto(Mat target, out double timestampS)
+    {
+        if (!Read(out var frame, out timestampS)) return false;
+        frame.CopyTo(target);
+        return true;
+    }
+
     private static string NaturalKey(string name) => Digits().Replace(name, d => d.Value.PadLeft(12, '0'));
 
     [GeneratedRegex("[0-9]+")]

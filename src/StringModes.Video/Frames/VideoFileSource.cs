@@ -78,9 +78,15 @@ public sealed class VideoFileSource : IFrameSource
     public bool Read(out Mat frame, out double timestampS)
     {
         frame = _frame;
+        return ReadInto(_frame, out timestampS);
+    }
+
+    /// <inheritdoc/>
+    public bool ReadInto(Mat target, out double timestampS)
+    {
         timestampS = double.NaN;
         bool ok;
-        try { ok = _capture.Read(_frame) && !_frame.Empty(); }
+        try { ok = _capture.Read(target) && !target.Empty(); }
         catch (OpenCVException) { ok = false; }
         if (!ok)
         {
@@ -88,9 +94,9 @@ public sealed class VideoFileSource : IFrameSource
                 _warnings.Add($"{Path}: decoding stopped after {_read} of {DeclaredFrameCount} declared frames; the file may be truncated or damaged, so only the frames before the damage were used");
             return false;
         }
-        if (_frame.Cols != WidthPx || _frame.Rows != HeightPx)
+        if (target.Cols != WidthPx || target.Rows != HeightPx)
         {
-            _warnings.Add($"{Path}: frame {_read} changed size to {_frame.Cols}×{_frame.Rows}; stopped there");
+            _warnings.Add($"{Path}: frame {_read} changed size to {target.Cols}×{target.Rows}; stopped there");
             return false;
         }
         var ms = _capture.Get(VideoCaptureProperties.PosMsec);

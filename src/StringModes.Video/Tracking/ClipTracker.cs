@@ -121,7 +121,8 @@ public static class ClipTracker
         {
             var scale = options.CaptureFps is { } capture && !double.IsNaN(source.DeclaredFps) ? source.DeclaredFps / capture : 1.0;
             var total = source.DeclaredFrameCount > 0 ? source.DeclaredFrameCount : 0;
-            while (source.Read(out var frame, out var timestamp))
+            using var pipeline = new FramePipeline(source, cancel: cancel);
+            foreach (var (frame, timestamp) in pipeline.Frames())
             {
                 cancel.ThrowIfCancellationRequested();
                 var access = new PixelAccess(frame);
