@@ -7,7 +7,7 @@ using StringModes.Video.Tracking;
 // Tracking accuracy and throughput on synthesised clips with known truth. Prints, per case, the RMS position error
 // against the exposure-averaged truth (moving marks, frames where the mark is visible and tracked), lost samples,
 // identity swaps (a tracked position nearer another mark's truth than its own), and the tracking/decode throughput ratio.
-// Usage: dotnet run -c Release --project bench/StringModes.Bench.Tracking [seconds]
+// Usage: dotnet run -c Release --project bench/StringModes.Bench.Tracking [seconds [case-name-part]]
 if (args.Length == 2 && args[0] == "decode")
 {
     // Decode-only timing of a clip through the same OpenCV FFmpeg decoder the tracker uses (for bench/performance.sh).
@@ -43,7 +43,8 @@ var cases = new (string Name, string Scene, string Clip)[]
 var dir = Directory.CreateTempSubdirectory("stringmodes-bench-tracking-").FullName;
 try
 {
-    foreach (var (name, text, file) in cases)
+    // Optional second argument: run only the cases whose name contains it.
+    foreach (var (name, text, file) in cases.Where(c => args.Length < 2 || c.Name.Contains(args[1], StringComparison.Ordinal)))
     {
         var scene = SceneFile.Parse(text, "bench.json");
         var clip = Path.Combine(dir, file);
