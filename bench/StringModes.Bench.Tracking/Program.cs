@@ -7,7 +7,7 @@ using StringModes.Video.Tracking;
 // Tracking accuracy and throughput on synthesised clips with known truth. Prints, per case, the RMS position error
 // against the exposure-averaged truth (moving marks, frames where the mark is visible and tracked), lost samples,
 // identity swaps (a tracked position nearer another mark's truth than its own), and the tracking/decode throughput ratio.
-// Usage: dotnet run -c Release --project bench/StringModes.Bench.Tracking [seconds]
+// Usage: dotnet run -c Release --project bench/StringModes.Bench.Tracking [seconds [case-name-part]]
 if (args.Length == 2 && args[0] == "decode")
 {
     // Decode-only timing of a clip through the same OpenCV FFmpeg decoder the tracker uses (for bench/performance.sh).
@@ -37,12 +37,14 @@ var cases = new (string Name, string Scene, string Clip)[]
     ("lossless FFV1, 1 ms exposure, noise 2 DN", Scene("\"capture_fps\": 240, \"exposure_s\": 0.001, \"noise_dn\": 2"), "a.mkv"),
     ("MPEG-4 q95, 1 ms exposure, noise 2 DN", Scene("\"capture_fps\": 240, \"exposure_s\": 0.001, \"noise_dn\": 2"), "b.mp4"),
     ("lossless FFV1, 1/250 s exposure, noise 2 DN", Scene("\"capture_fps\": 240, \"exposure_s\": 0.004, \"subframes\": 16, \"noise_dn\": 2"), "c.mkv"),
+    ("lossless FFV1, 0.3 s release exposed 1/240 s, then 1 ms", Scene("\"capture_fps\": 240, \"exposure_s\": 0.001, \"noise_dn\": 2", extra: ", \"release\": { \"duration_s\": 0.3, \"exposure_s\": 0.0041666, \"subframes\": 16 }"), "e.mkv"),
     ("lossless FFV1, mark hidden 10 frames", Scene("\"capture_fps\": 240, \"exposure_s\": 0.001, \"noise_dn\": 2", extra: ", \"occluders\": [ { \"rect_px\": [560, 300, 60, 140], \"from_s\": 0.2, \"to_s\": 0.24166 } ]"), "d.mkv"),
 };
 var dir = Directory.CreateTempSubdirectory("stringmodes-bench-tracking-").FullName;
 try
 {
-    foreach (var (name, text, file) in cases)
+    // Optional second argument: run only the cases whose name contains it.
+    foreach (var (name, text, file) in cases.Where(c => args.Length < 2 || c.Name.Contains(args[1], StringComparison.Ordinal)))
     {
         var scene = SceneFile.Parse(text, "bench.json");
         var clip = Path.Combine(dir, file);
@@ -90,8 +92,10 @@ try
                 n++;
             }
         }
+        var windowStart = t.TimesS[StringModes.Analysis.Geometry.AnalysisWindow.Choose(t).FirstFrame];
+        var release = scene.ReleaseDurationS > 0 ? FormattableString.Invariant($"; analysis window starts at {windowStart:F3} s ({windowStart - scene.ReleaseDurationS:+0.000;-0.000} s from the release end; target within 0.05 s)") : "";
         Console.WriteLine(FormattableString.Invariant(
-            $"{name}: RMS error {Math.Sqrt(sum / n):F4} px over {n} samples; lost {lost}; swaps {swaps}; frames to reacquire after reappearing {hiddenReacquireWorst}; tracking/decode throughput {decodeS / trackS:F2} (decode {t.FrameCount / decodeS:F0} fps, tracking {t.FrameCount / trackS:F0} fps incl. its own decode)"));
+            $"{name}{release}: RMS error {Math.Sqrt(sum / n):F4} px over {n} samples; lost {lost}; swaps {swaps}; frames to reacquire after reappearing {hiddenReacquireWorst}; tracking/decode throughput {decodeS / trackS:F2} (decode {t.FrameCount / decodeS:F0} fps, tracking {t.FrameCount / trackS:F0} fps incl. its own decode)"));
     }
 }
 finally

@@ -31,7 +31,10 @@ internal sealed class AnalyzeCommand(App app)
         app.OutDir = outDir;
 
         using var output = new OutputFolder(outDir, a.Flag("force"));
+        var clock = System.Diagnostics.Stopwatch.StartNew();
         var tracking = TrackingStep.Run(app, clip, rig, output, cancel);
+        app.Timing("tracking (decode, mark finding, tracking)", clock.Elapsed);
+        clock.Restart();
         var warnings = new List<string>(tracking.Warnings);
         warnings.AddRange(rig.Notes);
         var window = AnalysisWindow.Choose(tracking.Tracks);
@@ -47,6 +50,8 @@ internal sealed class AnalyzeCommand(App app)
             HarmonicCheckCoverageFactor = k,
         });
         warnings.AddRange(result.Warnings);
+        app.Timing("numeric stages (window, string coordinates, projection, fits, string model)", clock.Elapsed);
+        clock.Restart();
         if (!result.IsAnalysisPossible)
             throw new CliException(ExitCodes.AnalysisImpossible, $"{clip}: {result.Error}");
         cancel.ThrowIfCancellationRequested();
@@ -77,6 +82,7 @@ internal sealed class AnalyzeCommand(App app)
             throw new CliException(ExitCodes.OutputNotWritable, $"{outDir}: the report could not be written ({e.Message})");
         }
         output.Commit();
+        app.Timing("outputs (data files, figures, report)", clock.Elapsed);
 
         foreach (var w in distinctWarnings) app.Warn(w);
         if (a.Flag("json")) app.Out.Write(File.ReadAllText(Path.Combine(outDir, "results.json")));

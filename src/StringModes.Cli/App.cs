@@ -27,6 +27,7 @@ public sealed class App(TextWriter stdout, TextWriter stderr, bool noColour = tr
     public int Run(string[] args, CancellationToken cancel = default)
     {
         var debug = args.Contains("--debug");
+        Debug = debug;
         var rest = args.Where(a => a != "--debug").ToArray();
         try
         {
@@ -70,6 +71,15 @@ public sealed class App(TextWriter stdout, TextWriter stderr, bool noColour = tr
             Error.WriteLine($"stringmodes: internal error ({e.GetType().Name}: {e.Message.Split('\n')[0]}); rerun with --debug and report it");
             return ExitCodes.InternalError;
         }
+    }
+
+    /// <summary>True under <c>--debug</c>: stack traces and stage timings are written to stderr.</summary>
+    public bool Debug { get; private set; }
+
+    /// <summary>Writes a stage's wall time to stderr under <c>--debug</c>.</summary>
+    public void Timing(string stage, TimeSpan elapsed)
+    {
+        if (Debug) Error.WriteLine(string.Create(System.Globalization.CultureInfo.InvariantCulture, $"timing: {stage} {elapsed.TotalSeconds:F3} s"));
     }
 
     /// <summary>The output folder of the running command, for messages.</summary>

@@ -35,7 +35,7 @@ internal static class HelpText
           stringmodes analyze clip.mp4 --length 65cm --linear-density 0.99g/m --out results
 
         Global options:
-          --debug  show stack traces of errors
+          --debug  show stack traces of errors and the time each stage took
 
         {ExitCodeTable}
         """;

@@ -1,5 +1,4 @@
 using MathNet.Numerics.LinearAlgebra;
-using MathNet.Numerics.Optimization;
 
 namespace StringModes.Analysis.Fitting;
 
@@ -27,7 +26,7 @@ internal sealed record SinusoidFit(
 
 /// <summary>
 /// Levenberg–Marquardt fit of one decaying sinusoid plus offset (Levenberg 1944, Q. Appl. Math. 2:164; Marquardt 1963,
-/// SIAM J. Appl. Math. 11:431) with Math.NET's minimiser and an analytic Jacobian, on arbitrary (possibly non-uniform)
+/// SIAM J. Appl. Math. 11:431) (<see cref="DampedSinusoidLm"/>) with an analytic Jacobian, on arbitrary (possibly non-uniform)
 /// sample times. Internally the model is linear in its amplitudes, e^(−στ)·(a·cos 2πfτ + b·sin 2πfτ) + c, with τ
 /// measured from the middle of the record and scaled to [−1, 1] so that every parameter is of order one; this keeps
 /// the problem well conditioned and the A–φ pair free of wrap-around.
@@ -105,26 +104,15 @@ internal static class DampedSinusoidFit
         var lin = qr.Solve(y);
         var start = Vector<double>.Build.DenseOfArray([0.0, s0, lin[0], lin[1], lin[2]]);
 
-        var objective = ObjectiveFunction.NonlinearModel(Model, Jacobian, x, y);
-        var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-14, stepTolerance: 1e-13,
-            functionTolerance: 1e-15, maximumIterations: maximumIterations);
-        NonlinearMinimizationResult result;
-        try
-        {
-            result = minimizer.FindMinimum(objective, start);
-        }
-        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
-        {
-            // Math.NET signals a non-finite model evaluation this way; for a fit that is an ordinary failure.
-            return SinusoidFit.Failed(FitStatus.Singular);
-        }
-        if (result.ReasonForExit == ExitCondition.InvalidValues) return SinusoidFit.Failed(FitStatus.Singular);
-        var status = result.ReasonForExit == ExitCondition.ExceedIterations ? FitStatus.IterationLimit : FitStatus.Converged;
-        var p = result.MinimizingPoint;
+        var p = start.ToArray();
+        var (exit, iterations) = DampedSinusoidLm.Minimise(x.AsArray() ?? x.ToArray(), y.AsArray() ?? y.ToArray(), nu0, p, maximumIterations);
+        if (exit == DampedSinusoidLm.Exit.InvalidValues) return SinusoidFit.Failed(FitStatus.Singular);
+        var status = exit == DampedSinusoidLm.Exit.IterationLimit ? FitStatus.IterationLimit : FitStatus.Converged;
         if (p.Any(v => !double.IsFinite(v))) return SinusoidFit.Failed(FitStatus.Singular);
+        var pv = Vector<double>.Build.DenseOfArray(p);
 
-        var jac = Jacobian(p, x);
-        var residual = y - Model(p, x);
+        var jac = Jacobian(pv, x);
+        var residual = y - Model(pv, x);
         var rss = residual.DotProduct(residual);
         var normal = jac.TransposeThisAndMultiply(jac);
         var eig = normal.Evd().EigenValues.Real();
@@ -155,7 +143,7 @@ internal static class DampedSinusoidFit
         map[3, 3] = -a / (ampCentre * ampCentre);
         var cov = (map * covScaled * map.Transpose()).ToArray();
         if (cov.Cast<double>().Any(v => !double.IsFinite(v))) return SinusoidFit.Failed(FitStatus.Singular);
-        return new SinusoidFit(status, f, sigma, amplitude, phase, p[4] * scale, cov, Math.Sqrt(rss / n) * scale, colour, result.Iterations);
+        return new SinusoidFit(status, f, sigma, amplitude, phase, p[4] * scale, cov, Math.Sqrt(rss / n) * scale, colour, iterations);
     }
 
     /// <summary>Phase wrapped to (−π, π].</summary>

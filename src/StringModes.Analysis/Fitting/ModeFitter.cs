@@ -19,16 +19,16 @@ public static class ModeFitter
     public static ModeFitResult Fit(ModalCoordinates modal, ModeFitOptions? options = null)
     {
         options ??= new ModeFitOptions();
-        var fits = new List<ModeFit>(modal.ModeCount);
-        var internals = new List<SinusoidFit?>(modal.ModeCount);
         var warnings = new List<string>();
-        for (var j = 0; j < modal.ModeCount; j++)
+        // Modes are fitted independently, so in parallel; each result lands in its own slot (order is kept).
+        var fitted = new (ModeFit Fit, SinusoidFit? Raw)[modal.ModeCount];
+        Parallel.For(0, modal.ModeCount, j =>
         {
             var (times, values) = modal.ValidSeries(j);
-            var (fit, raw) = FitSeriesCore(modal.ModeNumbers[j], times, values, options);
-            fits.Add(fit);
-            internals.Add(raw);
-        }
+            fitted[j] = FitSeriesCore(modal.ModeNumbers[j], times, values, options);
+        });
+        var fits = fitted.Select(f => f.Fit).ToList();
+        var internals = fitted.Select(f => f.Raw).ToList();
         RefitNearHarmonics(modal, options, fits, internals);
         foreach (var fit in fits) warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
 
@@ -366,11 +366,14 @@ public static class ModeFitter
         if (estimate is null) return "matrix-pencil cross-check failed: no matching poles were found";
 
         // Parametric bootstrap: the fitted curves plus white noise at each channel's residual level.
-        var random = new Random(options.Seed);
-        var draws = new List<(double F, double S)[]>();
-        var noise = new double[used.Length][];
-        for (var b = 0; b < Math.Max(4, options.CrossCheckBootstrapDraws); b++)
+        // Each draw has its own seeded generator, so the draws run in parallel and the result does not depend on
+        // how they are scheduled.
+        var drawCount = Math.Max(4, options.CrossCheckBootstrapDraws);
+        var drawn = new (double F, double S)[]?[drawCount];
+        Parallel.For(0, drawCount, b =>
         {
+            var random = new Random(unchecked(options.Seed * 7919 + b));
+            var noise = new double[used.Length][];
             for (var m = 0; m < used.Length; m++)
             {
                 noise[m] = new double[bestLength];
@@ -382,8 +385,9 @@ public static class ModeFitter
                 var r = raw[j]!;
                 return StringMotion.ModalCoordinate(new ModeComponent(1, r.FrequencyHz, r.DecayRatePerS, r.AmplitudeM, r.PhaseRad), times[i]) + r.OffsetM + noise[m][i];
             }));
-            if (d is not null) draws.Add(d);
-        }
+            drawn[b] = d;
+        });
+        var draws = drawn.Where(d => d is not null).Select(d => d!).ToList();
         if (draws.Count < 4) return "matrix-pencil cross-check gave no uncertainty: the bootstrap failed";
 
         for (var m = 0; m < used.Length; m++)

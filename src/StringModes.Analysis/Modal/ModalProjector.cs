@@ -62,33 +62,38 @@ public static class ModalProjector
         long residualCount = 0;
         int tooFewMarks = 0, illConditioned = 0;
 
+        var shape = new double[marks, modeCount];
+        for (var i = 0; i < marks; i++)
+            for (var j = 0; j < modeCount; j++) shape[i, j] = ModeShape(modeNumbers[j], positions[i], coordinates.LengthM);
+        var solver = new SmallLeastSquares(marks, modeCount);
+        var rows = new int[marks];
+        var x = new double[modeCount];
         for (var f = 0; f < frames; f++)
         {
-            var rows = new List<int>(marks);
-            for (var i = 0; i < marks; i++) if (usable[f, i]) rows.Add(i);
-            if (rows.Count < modeCount) { tooFewMarks++; continue; }
+            var count = 0;
+            for (var i = 0; i < marks; i++) if (usable[f, i]) rows[count++] = i;
+            if (count < modeCount) { tooFewMarks++; continue; }
 
-            var a = Matrix<double>.Build.Dense(rows.Count, modeCount);
-            var b = Vector<double>.Build.Dense(rows.Count);
-            for (var r = 0; r < rows.Count; r++)
+            for (var r = 0; r < count; r++)
             {
                 var i = rows[r];
                 var sw = Math.Sqrt(coordinates.Weight[f, i]);
-                for (var j = 0; j < modeCount; j++) a[r, j] = sw * ModeShape(modeNumbers[j], positions[i], coordinates.LengthM);
-                b[r] = sw * coordinates.DisplacementM[f, i];
+                var row = solver.Row(r);
+                for (var j = 0; j < modeCount; j++) row[j] = sw * shape[i, j];
+                solver.Rhs[r] = sw * coordinates.DisplacementM[f, i];
             }
-            var cond = Condition(a);
+            var cond = solver.Solve(count, x);
             if (!(cond < options.ConditionLimit)) { illConditioned++; continue; }
-            var x = a.QR().Solve(b);
             valid[f] = true;
             worstCondition = Math.Max(worstCondition, cond);
             for (var j = 0; j < modeCount; j++) amplitude[f, j] = x[j];
-            foreach (var i in rows)
+            for (var r = 0; r < count; r++)
             {
+                var i = rows[r];
                 double model = 0;
-                for (var j = 0; j < modeCount; j++) model += x[j] * ModeShape(modeNumbers[j], positions[i], coordinates.LengthM);
-                var r = coordinates.DisplacementM[f, i] - model;
-                residualSquares += r * r;
+                for (var j = 0; j < modeCount; j++) model += x[j] * shape[i, j];
+                var residual = coordinates.DisplacementM[f, i] - model;
+                residualSquares += residual * residual;
                 residualCount++;
             }
         }

@@ -28,8 +28,11 @@ internal static class FigureRenderer
             canvas.Scale((float)options.Scale);
             layout = draw(canvas);
             canvas.Flush();
-            using var image = surface.Snapshot();
-            using var data = image.Encode(SKEncodedImageFormat.Png, 100);
+            // zlib level 4 with the Sub and Up filters: lossless like the default, a few per cent larger, about
+            // three times faster to encode (figures are encoded on every run).
+            using var pixels = surface.PeekPixels();
+            using var data = pixels.Encode(new SKPngEncoderOptions(SKPngEncoderFilterFlags.Sub | SKPngEncoderFilterFlags.Up, 4))
+                ?? throw new InvalidOperationException("The figure could not be encoded as PNG.");
             png = data.ToArray();
         }
 

@@ -21,27 +21,33 @@ public static class ReferenceFrameOverlay
     internal static readonly SKColor ExtentColour = new(0x9c, 0xff, 0x57);
     private static readonly SKColor UnderStroke = new(0, 0, 0, 200);
 
+    // Layout: title band, legend strip and side margins, in figure pixels.
+    private const float Top = 62, LegendStrip = 46, Side = 16;
+
     /// <summary>Renders the overlay. Throws <see cref="ArgumentException"/> when the image cannot be decoded.</summary>
     public static RenderedFigure Render(ReferenceFrame frame, FigureOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(frame);
         options ??= FigureOptions.Default;
-        using var image = Decode(frame);
+        using var full = Decode(frame);
+        // The frame is drawn at figure size: it is resampled once to that size (times the raster scale), so the
+        // PNG and the SVG embed a picture no larger than they show; the full-size frame is its own output file.
+        using var shown = Downscaled(full, options);
+        var image = full;
         const string caption = "Reference frame with the string ends, the string axis, each mark's rest position and the extent of its track during the analysis.";
 
         return FigureRenderer.Render(Name, caption, options, canvas =>
         {
-            const float top = 62, legendStrip = 46, side = 16;
-            var availableW = options.WidthPx - 2 * side;
-            var availableH = options.HeightPx - top - legendStrip;
+            var availableW = options.WidthPx - 2 * Side;
+            var availableH = options.HeightPx - Top - LegendStrip;
             var k = Math.Min(availableW / image.Width, availableH / image.Height);
             var w = image.Width * k;
             var h = image.Height * k;
             var left = (options.WidthPx - w) / 2;
-            var rect = new SKRect(left, top, left + w, top + h);
-            Axes.DrawTitle(canvas, side, "Reference frame",
+            var rect = new SKRect(left, Top, left + w, Top + h);
+            Axes.DrawTitle(canvas, Side, "Reference frame",
                 FigureText.Invariant($"{image.Width} × {image.Height} px, {frame.Marks.Count} marks; track extents over the analysis window"));
-            canvas.DrawImage(image, rect, new SKSamplingOptions(SKFilterMode.Linear));
+            canvas.DrawImage(shown ?? full, rect, new SKSamplingOptions(SKFilterMode.Linear));
             SKPoint P(ImagePoint p) => new(rect.Left + (float)(p.XPx * k), rect.Top + (float)(p.YPx * k));
 
             var count = canvas.Save();
@@ -89,9 +95,20 @@ public static class ReferenceFrameOverlay
             canvas.RestoreToCount(count);
             using var frameEdge = FigureStyle.Stroke(FigureStyle.Ink, 1);
             canvas.DrawRect(rect, frameEdge);
-            DrawLegend(canvas, options.HeightPx - legendStrip + 10);
+            DrawLegend(canvas, options.HeightPx - LegendStrip + 10);
             return new DrawnLayout(new PixelRect(rect.Left, rect.Top, rect.Right, rect.Bottom), null, new AxesRange(0, image.Width, image.Height, 0));
         });
+    }
+
+    private static SKImage? Downscaled(SKImage image, FigureOptions options)
+    {
+        var k = Math.Min((options.WidthPx - 2 * Side) / image.Width, (options.HeightPx - Top - LegendStrip) / image.Height) * options.Scale;
+        if (k >= 0.9) return null;
+        var info = new SKImageInfo(Math.Max(1, (int)Math.Ceiling(image.Width * k)), Math.Max(1, (int)Math.Ceiling(image.Height * k)), SKColorType.Rgba8888, SKAlphaType.Opaque);
+        using var bitmap = new SKBitmap(info);
+        using var pixmap = bitmap.PeekPixels();
+        if (!image.ScalePixels(pixmap, new SKSamplingOptions(SKCubicResampler.Mitchell))) return null;
+        return SKImage.FromPixelCopy(pixmap);
     }
 
     internal static SKImage Decode(ReferenceFrame frame)

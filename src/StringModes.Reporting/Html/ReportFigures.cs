@@ -8,44 +8,47 @@ public static class ReportFigures
 {
     /// <summary>
     /// Renders the figures present in <paramref name="model"/>: mode amplitude, space–time, spectra, decay,
-    /// harmonic ratio, reference frame (each only when its data are set and non-empty).
+    /// harmonic ratio, reference frame (each only when its data are set and non-empty), in that order.
     /// </summary>
     public static IReadOnlyList<RenderedFigure> RenderAll(ReportModel model, FigureOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(model);
         var f = model.Figures;
-        var list = new List<RenderedFigure>();
+        var list = new List<Func<RenderedFigure>>();
         var window = (model.Measurement.AnalysisWindowStartS, model.Measurement.AnalysisWindowEndS);
         if (f.ModeAmplitudes is { ModeNumbers.Length: > 0 } amplitudes)
         {
-            list.Add(ModeAmplitudeHeatmap.Render(amplitudes, analysisWindowS: window.AnalysisWindowEndS > window.AnalysisWindowStartS ? window : null, options: options));
+            list.Add(() => ModeAmplitudeHeatmap.Render(amplitudes, analysisWindowS: window.AnalysisWindowEndS > window.AnalysisWindowStartS ? window : null, options: options));
         }
 
         if (f.Displacement is { PositionsM.Length: > 0, TimesS.Length: > 0 } field)
         {
-            list.Add(SpaceTimeHeatmap.Render(field, f.DisplacementTimeRangeS, options));
+            list.Add(() => SpaceTimeHeatmap.Render(field, f.DisplacementTimeRangeS, options));
         }
 
         if (f.Spectra is { Count: > 0 } spectra)
         {
-            list.Add(SpectrumFigure.Render(spectra, options: options));
+            list.Add(() => SpectrumFigure.Render(spectra, options: options));
         }
 
         if (f.Decays is { Count: > 0 } decays)
         {
-            list.Add(DecayFigure.Render(decays, options: options));
+            list.Add(() => DecayFigure.Render(decays, options: options));
         }
 
         if (f.HarmonicRatios is { Count: > 0 } ratios)
         {
-            list.Add(HarmonicRatioFigure.Render(ratios, f.Inharmonicity, options));
+            list.Add(() => HarmonicRatioFigure.Render(ratios, f.Inharmonicity, options));
         }
 
         if (f.ReferenceFrame is { } frame)
         {
-            list.Add(ReferenceFrameOverlay.Render(frame, options));
+            list.Add(() => ReferenceFrameOverlay.Render(frame, options));
         }
 
-        return list;
+        // Figures are independent: they are drawn in parallel and returned in report order.
+        var rendered = new RenderedFigure[list.Count];
+        Parallel.For(0, list.Count, i => rendered[i] = list[i]());
+        return rendered;
     }
 }

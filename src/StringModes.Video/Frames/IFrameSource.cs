@@ -27,6 +27,16 @@ public interface IFrameSource : IDisposable
     /// <summary>Reads the next frame; false at the end of the clip (or at damage, see <see cref="Warnings"/>).</summary>
     bool Read(out Mat frame, out double timestampS);
 
+    /// <summary>Reads the next frame into <paramref name="target"/> (reallocated only when its size or type differs); false at the end.</summary>
+    bool ReadInto(Mat target, out double timestampS);
+
+    /// <summary>
+    /// Moves so that the next <see cref="Read"/> returns frame <paramref name="index"/> without decoding the frames
+    /// before it where the format allows (a video seeks to the nearest key frame and decodes from there).
+    /// False when the source cannot skip; it is then unchanged and can still be read in order.
+    /// </summary>
+    bool TrySkipTo(int index);
+
     /// <summary>Problems met while reading (truncation, damaged frames).</summary>
     IReadOnlyList<string> Warnings { get; }
 }

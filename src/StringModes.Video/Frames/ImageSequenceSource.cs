@@ -56,6 +56,15 @@ public sealed partial class ImageSequenceSource : IFrameSource
         return m;
     }
 
+    /// <inheritdoc/>
+    public bool TrySkipTo(int index)
+    {
+        if (index < 0 || index >= _files.Length) return false;
+        _next = index;
+        return true;
+    }
+
+    /// <inheritdoc/>
     public bool Read(out Mat frame, out double timestampS)
     {
         timestampS = _next / _fps;
@@ -75,6 +84,14 @@ public sealed partial class ImageSequenceSource : IFrameSource
         _frame = m;
         frame = m;
         _next++;
+        return true;
+    }
+
+    /// <inheritdoc/>
+    public bool ReadInto(Mat target, out double timestampS)
+    {
+        if (!Read(out var frame, out timestampS)) return false;
+        frame.CopyTo(target);
         return true;
     }
 

@@ -45,12 +45,37 @@ public sealed class VideoFileSource : IFrameSource
     public int DeclaredFrameCount { get; }
     public IReadOnlyList<string> Warnings => _warnings;
 
+    /// <inheritdoc/>
+    public bool TrySkipTo(int index)
+    {
+        if (_read != 0 || index <= 0 || (DeclaredFrameCount > 0 && index >= DeclaredFrameCount)) return false;
+        // The backend seeks to the key frame before the target and decodes forward to it; a failed seek leaves the
+        // capture at the start, which is checked by reading the position back.
+        bool ok;
+        try { ok = _capture.Set(VideoCaptureProperties.PosFrames, index) && (int)Math.Round(_capture.Get(VideoCaptureProperties.PosFrames)) == index; }
+        catch (OpenCVException) { ok = false; }
+        if (!ok)
+        {
+            try { _capture.Set(VideoCaptureProperties.PosFrames, 0); } catch (OpenCVException) { }
+            return false;
+        }
+        _read = index;
+        return true;
+    }
+
+    /// <inheritdoc/>
     public bool Read(out Mat frame, out double timestampS)
     {
         frame = _frame;
+        return ReadInto(_frame, out timestampS);
+    }
+
+    /// <inheritdoc/>
+    public bool ReadInto(Mat target, out double timestampS)
+    {
         timestampS = double.NaN;
         bool ok;
-        try { ok = _capture.Read(_frame) && !_frame.Empty(); }
+        try { ok = _capture.Read(target) && !target.Empty(); }
         catch (OpenCVException) { ok = false; }
         if (!ok)
         {
@@ -58,9 +83,9 @@ public sealed class VideoFileSource : IFrameSource
                 _warnings.Add($"{Path}: decoding stopped after {_read} of {DeclaredFrameCount} declared frames; the file may be truncated or damaged, so only the frames before the damage were used");
             return false;
         }
-        if (_frame.Cols != WidthPx || _frame.Rows != HeightPx)
+        if (target.Cols != WidthPx || target.Rows != HeightPx)
         {
-            _warnings.Add($"{Path}: frame {_read} changed size to {_frame.Cols}×{_frame.Rows}; stopped there");
+            _warnings.Add($"{Path}: frame {_read} changed size to {target.Cols}×{target.Rows}; stopped there");
             return false;
         }
         var ms = _capture.Get(VideoCaptureProperties.PosMsec);

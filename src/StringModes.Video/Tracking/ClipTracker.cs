@@ -62,12 +62,24 @@ public static class ClipTracker
             if (declaredCount > 0) referenceIndex = Math.Min(referenceIndex, declaredCount / 4);
             Mat? reference = null;
             var index = 0;
-            while (source.Read(out var frame, out _))
+            // Skipping straight to the reference frame avoids decoding the start of the clip twice; where the
+            // format cannot skip, or the frame is not there after all, the frames are read in order up to it.
+            if (referenceIndex > 0 && source.TrySkipTo(referenceIndex) && source.Read(out var skipped, out _))
             {
-                cancel.ThrowIfCancellationRequested();
-                reference?.Dispose();
-                reference = frame.Clone();
-                if (index++ >= referenceIndex) break;
+                reference = skipped.Clone();
+                index = referenceIndex + 1;
+            }
+            if (reference is null)
+            {
+                using var ordered = referenceIndex > 0 ? FrameSources.Open(path, options.CaptureFps) : null;
+                var inOrder = ordered ?? source;
+                while (inOrder.Read(out var frame, out _))
+                {
+                    cancel.ThrowIfCancellationRequested();
+                    reference?.Dispose();
+                    reference = frame.Clone();
+                    if (index++ >= referenceIndex) break;
+                }
             }
             if (reference is null)
                 throw new InputFileException($"{path}: holds no decodable frames; check that the recording finished and the file was copied completely");
@@ -109,7 +121,8 @@ public static class ClipTracker
         {
             var scale = options.CaptureFps is { } capture && !double.IsNaN(source.DeclaredFps) ? source.DeclaredFps / capture : 1.0;
             var total = source.DeclaredFrameCount > 0 ? source.DeclaredFrameCount : 0;
-            while (source.Read(out var frame, out var timestamp))
+            using var pipeline = new FramePipeline(source, cancel: cancel);
+            foreach (var (frame, timestamp) in pipeline.Frames())
             {
                 cancel.ThrowIfCancellationRequested();
                 var access = new PixelAccess(frame);

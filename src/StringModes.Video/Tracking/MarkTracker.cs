@@ -123,7 +123,7 @@ internal sealed class MarkTracker
             }
         var background = Median(_border.AsSpan(0, nb));
         var threshold = 0.3 * _contrast;
-        double sx = 0, sy = 0, sm = 0, peak = 0;
+        double sx = 0, sy = 0, sm = 0, peak = 0, sxx = 0, syy = 0, sxy = 0;
         for (var j = 0; j < side; j++)
             for (var i = 0; i < side; i++)
             {
@@ -135,12 +135,47 @@ internal sealed class MarkTracker
                 sy += w * j;
                 sm += w;
             }
+        // Second moments for the sharpness, from the faint streak as well as the core (a lower threshold: blur
+        // spreads a mark's contrast thinly along its path, below the centroid's threshold).
+        double mx0 = 0, my0 = 0, m0 = 0;
+        for (var j = 0; j < side; j++)
+            for (var i = 0; i < side; i++)
+            {
+                var w = _window[j * side + i] - background - 0.1 * _contrast;
+                if (w <= 0) continue;
+                mx0 += w * i;
+                my0 += w * j;
+                m0 += w;
+                sxx += w * i * i;
+                syy += w * j * j;
+                sxy += w * i * j;
+            }
         if (peak < 0.5 * _contrast || sm <= 0) return (double.NaN, double.NaN, 0);
         if (double.IsNaN(_referenceMass)) _referenceMass = sm;
         var massRatio = sm / _referenceMass;
-        var quality = Math.Clamp(peak / _contrast, 0, 1) * Math.Clamp(Math.Min(massRatio, 1 / massRatio), 0, 1);
+        var quality = Math.Clamp(peak / _contrast, 0, 1) * Math.Clamp(Math.Min(massRatio, 1 / massRatio), 0, 1) * (m0 > 0 ? Sharpness(mx0, my0, m0, sxx, syy, sxy) : 1);
         if (massRatio < 0.2) return (double.NaN, double.NaN, 0);
         return (cx - h + sx / sm, cy - h + sy / sm, quality);
+    }
+
+    /// <summary>
+    /// Motion blur stretches a mark across the string (the direction it moves in) and not along it: a streak of
+    /// length ℓ adds ℓ²/12 to the blob's variance across. The factor √(var along / var across), at most 1, is 1 for
+    /// a sharp round mark and falls as blur lengthens the blob, so blurred frames (a blurred release) carry a lower quality.
+    /// </summary>
+    private double Sharpness(double sx, double sy, double sm, double sxx, double syy, double sxy)
+    {
+        var mx = sx / sm;
+        var my = sy / sm;
+        var vxx = sxx / sm - mx * mx;
+        var vyy = syy / sm - my * my;
+        var vxy = sxy / sm - mx * my;
+        var nx = -_axisY;
+        var ny = _axisX;
+        var along = _axisX * _axisX * vxx + 2 * _axisX * _axisY * vxy + _axisY * _axisY * vyy;
+        var across = nx * nx * vxx + 2 * nx * ny * vxy + ny * ny * vyy;
+        if (!(along > 0) || !(across > 0)) return 1;
+        return Math.Min(1, Math.Sqrt(along / across));
     }
 
     // Brightest pixel of the mark's colour over its whole stretch of string; seeds the centroid after a loss.
