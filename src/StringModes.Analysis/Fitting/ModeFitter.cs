@@ -30,6 +30,7 @@ public static class ModeFitter
             internals.Add(raw);
         }
         RefitNearHarmonics(modal, options, fits, internals);
+        if (options.DetectKeyFrames) ApplyKeyFrames(modal, options, fits, internals, warnings);
         foreach (var fit in fits) warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
 
         var checks = new List<CrossCheck>();
@@ -128,17 +129,64 @@ public static class ModeFitter
                 : "the decay fit failed; no values are reported");
             return (ModeFit.Unfitted(n, fit.Status, warnings), null);
         }
+        if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
+            warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
+        return (Finish(n, times, values, fit, periods, options, warnings), fit);
+    }
+
+    /// <summary>Warnings about a converged fit, the decay-shape checks, and the derived damping measures.</summary>
+    private static ModeFit Finish(int n, double[] times, double[] values, SinusoidFit fit, double periods, ModeFitOptions options, List<string> warnings)
+    {
         if (fit.Status == FitStatus.IterationLimit)
             warnings.Add($"the decay fit stopped at the iteration limit ({options.MaximumIterations}); values may be less accurate than stated");
         if (fit.ColourFactor > 1.0)
-            warnings.Add($"fit residuals are not white near the mode frequency; uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
+            warnings.Add($"fit residuals are not white: near the mode frequency their noise level is {fit.ColourFactor:G3} times their mean level (errors correlated in time, e.g. from video compression or an envelope the model does not follow); uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
         else if (fit.ColourFactor < 1.0)
             warnings.Add($"fit residuals are coloured and weak near the mode frequency; uncertainties were reduced to {Math.Sqrt(fit.ColourFactor):F2} times their white-noise values");
-        if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
-            warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
-
         if (options.CheckDecayShape) CheckDecayShape(times, values, fit, periods, options, warnings);
-        return (Derive(n, fit, warnings), fit);
+        return Derive(n, fit, warnings);
+    }
+
+    /// <summary>
+    /// Key frames of a predictive video codec (see <see cref="KeyFrameStructure"/>): when the residuals show them,
+    /// every mode is refitted on the key frames alone, starting from its all-frame fit, because the frames between
+    /// them carry an amplitude-dependent codec error that a fit absorbs into σ and f. The key frames sample the
+    /// motion below the modes' frequencies, which is harmless here: the fit uses the true frame times and starts
+    /// within a small fraction of the alias spacing of the solution. The all-frame values are kept in a note.
+    /// </summary>
+    private static void ApplyKeyFrames(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals, List<string> warnings)
+    {
+        var fitted = Enumerable.Range(0, fits.Count).Where(j => fits[j].IsUsable && internals[j] is not null).Select(j => (j, internals[j]!)).ToList();
+        var key = KeyFrameStructure.Detect(modal, fitted);
+        if (key is null) return;
+        var found = string.Create(System.Globalization.CultureInfo.InvariantCulture,
+            $"every {key.Period}th frame has {key.VarianceRatio:F2} times the residual variance of the others ({-key.Score:F1} standard errors): the key frames of a compressed video, between which the codec loses small motions");
+        if (key.Count < options.MinimumKeyFrames)
+        {
+            warnings.Add($"{found}; there are only {key.Count} key frames in the window (at least {options.MinimumKeyFrames} are needed to fit on them alone), so frequencies and decay rates may carry a codec error beyond their uncertainties; a lossless recording or a shorter keyframe interval avoids this");
+            return;
+        }
+        warnings.Add($"{found}; the modes were fitted on the {key.Count} key frames only");
+        foreach (var (j, all) in fitted)
+        {
+            var times = new List<double>(key.Count);
+            var values = new List<double>(key.Count);
+            for (var k = 0; k < modal.FrameCount; k++)
+                if (key.IsKey[k]) { times.Add(modal.TimesS[k]); values.Add(modal.AmplitudeM[k, j]); }
+            var fit = DampedSinusoidFit.Fit([.. times], [.. values], all.FrequencyHz, all.DecayRatePerS, options.MaximumIterations, options.CorrectForColouredResiduals);
+            var n = fits[j].N;
+            if (!fit.Usable)
+            {
+                fits[j] = fits[j] with { Warnings = [.. fits[j].Warnings, "the fit on the key frames alone failed; the values come from all frames and may carry the codec's error beyond their uncertainties"] };
+                continue;
+            }
+            var previous = fits[j];
+            var note = string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"fitted on the {key.Count} key frames (every {key.Period}th frame); all frames gave f = {previous.FrequencyHz.Value:G9} Hz and σ = {previous.DecayRatePerS.Value:G5} 1/s");
+            var periods = fit.FrequencyHz * (times[^1] - times[0]);
+            fits[j] = Finish(n, [.. times], [.. values], fit, periods, options, [note]);
+            internals[j] = fit;
+        }
     }
 
     private static ModeFit Derive(int n, SinusoidFit fit, List<string> warnings)
