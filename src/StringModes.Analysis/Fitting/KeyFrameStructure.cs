@@ -30,6 +30,13 @@ internal sealed record KeyFrames(int Period, int Phase, double Score, double Var
 /// variance (white or coloured) almost never trigger it. Harmonics of the true period (2G, 3G) split the key class and
 /// sub-multiples mix it with inter frames, so the most negative z falls on G itself.
 /// </para>
+/// <para>
+/// Tracking error that depends on the motion (blur grows with speed, centroid bias with position) repeats with the
+/// vibration, whose square has period 1/(2f). When P frames span a whole number of those periods, a frame class
+/// samples the same motion phase all through the record and its error differs for that reason alone (e.g. 40 Hz
+/// filmed at 400 frames/s and P = 5). Periods for which, for any fitted mode, the class's motion phase
+/// 2·f·P·Δt drifts by less than one cycle over the record (|2fPΔt − round(2fPΔt)|·n/P &lt; 1) are therefore not tried.
+/// </para>
 /// </summary>
 internal static class KeyFrameStructure
 {
@@ -71,12 +78,20 @@ internal static class KeyFrameStructure
         var variance = energy.Sum(v => (v - mean) * (v - mean)) / (n - 1);
         if (!(variance > 0)) return null;
 
-        var classes = 0;
-        for (var p = 2; p <= maxPeriod; p++) classes += p;
+        var span = modal.TimesS[frames[^1]] - modal.TimesS[frames[0]];
+        var dt = span / Math.Max(frames[^1] - frames[0], 1);
+        bool PhaseLocked(int p) => fits.Any(f =>
+        {
+            var cycles = 2 * f.Fit.FrequencyHz * p * dt;
+            return Math.Abs(cycles - Math.Round(cycles)) * n / p < 1;
+        });
+        var periods = Enumerable.Range(2, maxPeriod - 1).Where(p => !PhaseLocked(p)).ToArray();
+        var classes = periods.Sum();
+        if (classes == 0) return null;
         var critical = Normal.InvCDF(0, 1, FalseAlarmProbability / classes);
 
         (int Period, int Phase, double Z) best = (0, 0, 0);
-        for (var p = 2; p <= maxPeriod; p++)
+        foreach (var p in periods)
         {
             var sums = new double[p];
             var counts = new int[p];

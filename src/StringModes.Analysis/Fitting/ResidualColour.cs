@@ -53,7 +53,7 @@ internal static class ResidualColour
         var p = jacobian.ColumnCount;
         var white = new LocalNoiseLevel(1, 1, n - p);
         var bins = 2 * BandHalfWidthBins + 1;
-        if (n < 8 * bins || !(cyclesPerUnit > 0)) return white;
+        if (n < 4 * bins || !(cyclesPerUnit > 0)) return white;
         var span = x[n - 1] - x[0];
         if (!(span > 0)) return white;
         var spacing = (n - 1) / (span * n); // Fourier spacing 1/T, with T = n·mean interval
