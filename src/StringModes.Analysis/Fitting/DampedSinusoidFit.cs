@@ -30,9 +30,10 @@ internal sealed record SinusoidFit(
 /// sample times. Internally the model is linear in its amplitudes, e^(−στ)·(a·cos 2πfτ + b·sin 2πfτ) + c, with τ
 /// measured from the middle of the record and scaled to [−1, 1] so that every parameter is of order one; this keeps
 /// the problem well conditioned and the A–φ pair free of wrap-around.
-/// The covariance is s²·(JᵀJ)⁻¹ with s² = RSS/(n − 5), computed here from the Jacobian at the solution, then
-/// multiplied by a residual-colour factor (see <see cref="ResidualColour"/>) when the residuals are significantly
-/// non-white near the mode frequency.
+/// The covariance is s²·(JᵀJ)⁻¹ with s² = RSS/(n − 5), computed here from the Jacobian at the solution; when the
+/// residuals' local spectral level in a narrow band around the mode frequency differs significantly from s², that
+/// level replaces s² (Hannan 1973; see <see cref="ResidualColour"/>), so correlated errors near f widen the
+/// uncertainties and white noise keeps the textbook covariance.
 /// </summary>
 internal static class DampedSinusoidFit
 {
@@ -119,7 +120,7 @@ internal static class DampedSinusoidFit
         if (!(eig.Minimum() > eig.Maximum() * 1e-14)) return SinusoidFit.Failed(FitStatus.Singular);
         var f = (nu0 + p[0]) / halfSpan;
         // Residuals at rounding level (noise-free data) carry no statistical information about colour.
-        var colour = correctForColouredResiduals && rss > 1e-20 * n ? ResidualColour.VarianceFactor(residual.AsArray() ?? residual.ToArray(), f * (timesS[^1] - timesS[0]) / (n - 1)) : 1.0;
+        var colour = correctForColouredResiduals && rss > 1e-20 * n ? ResidualColour.Estimate(x, residual, jac, nu0 + p[0]).VarianceFactor : 1.0;
         var covScaled = normal.Inverse() * (rss / (n - ParameterCount) * colour);
 
         // Physical parameters (f, σ, A(0), φ(0)) and the Jacobian of that map for the covariance.

@@ -18,7 +18,7 @@ namespace StringModes.Analysis.Fitting;
 /// <param name="LogarithmicDecrement">δ = σ/f (per damped period).</param>
 /// <param name="Status">Fit outcome.</param>
 /// <param name="ResidualRmsM">RMS of the time-domain fit residual, metres.</param>
-/// <param name="ResidualColourFactor">Factor by which the covariance was scaled because the residuals were not white near f (in [0.25, ∞)); 1 for white residuals.</param>
+/// <param name="ResidualColourFactor">Factor by which the covariance was scaled because the residuals' spectral level in a narrow band around f differs significantly from their mean level (local noise level; see the fitter's docs), &gt; 0; 1 for residuals consistent with white noise.</param>
 /// <param name="Warnings">Plain-language warnings about this mode (beating, drifting frequency, short window, …).</param>
 public sealed record ModeFit(
     int N,

@@ -15,7 +15,10 @@ public sealed record ModeFitOptions
     /// <summary>Fewest periods of a mode in the analysis window for a fit; &gt; 0; default 3. Below 1.5 periods the mode is not fitted.</summary>
     public double MinimumPeriods { get; init; } = 3;
 
-    /// <summary>Widen uncertainties when fit residuals are coloured near the mode frequency (see the fitter's docs); default true.</summary>
+    /// <summary>
+    /// Use the residuals' local noise level in a band of 13 Fourier bins around the mode frequency instead of their
+    /// mean level when the two differ significantly (errors correlated in time; see the fitter's docs); default true.
+    /// </summary>
     public bool CorrectForColouredResiduals { get; init; } = true;
 
     /// <summary>
@@ -24,6 +27,15 @@ public sealed record ModeFitOptions
     /// rate of about 0.3 % per check for Gaussian errors).
     /// </summary>
     public double ConsistencyCoverageFactor { get; init; } = 3;
+
+    /// <summary>
+    /// Look for the key frames of a compressed video in the fit residuals (one frame in every G with markedly smaller
+    /// error) and, when found, fit the modes on the key frames alone; default true. See the fitter's docs.
+    /// </summary>
+    public bool DetectKeyFrames { get; init; } = true;
+
+    /// <summary>Fewest key frames in the window for fitting on them alone; ≥ 10; default 40.</summary>
+    public int MinimumKeyFrames { get; init; } = 40;
 
     /// <summary>Run the split-window decay and frequency-drift checks; default true.</summary>
     public bool CheckDecayShape { get; init; } = true;

@@ -30,6 +30,7 @@ public static class ModeFitter
         var fits = fitted.Select(f => f.Fit).ToList();
         var internals = fitted.Select(f => f.Raw).ToList();
         RefitNearHarmonics(modal, options, fits, internals);
+        if (options.DetectKeyFrames) ApplyKeyFrames(modal, options, fits, internals, warnings);
         foreach (var fit in fits) warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
 
         var checks = new List<CrossCheck>();
@@ -128,17 +129,71 @@ public static class ModeFitter
                 : "the decay fit failed; no values are reported");
             return (ModeFit.Unfitted(n, fit.Status, warnings), null);
         }
+        if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
+            warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
+        return (Finish(n, times, values, fit, periods, options, warnings), fit);
+    }
+
+    /// <summary>Warnings about a converged fit, the decay-shape checks, and the derived damping measures.</summary>
+    private static ModeFit Finish(int n, double[] times, double[] values, SinusoidFit fit, double periods, ModeFitOptions options, List<string> warnings)
+    {
         if (fit.Status == FitStatus.IterationLimit)
             warnings.Add($"the decay fit stopped at the iteration limit ({options.MaximumIterations}); values may be less accurate than stated");
         if (fit.ColourFactor > 1.0)
-            warnings.Add($"fit residuals are not white near the mode frequency; uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
+            warnings.Add($"fit residuals are not white: near the mode frequency their noise level is {fit.ColourFactor:G3} times their mean level (errors correlated in time, e.g. from video compression or an envelope the model does not follow); uncertainties were widened by a factor {Math.Sqrt(fit.ColourFactor):F2}");
         else if (fit.ColourFactor < 1.0)
             warnings.Add($"fit residuals are coloured and weak near the mode frequency; uncertainties were reduced to {Math.Sqrt(fit.ColourFactor):F2} times their white-noise values");
-        if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
-            warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
+        var scale = options.CheckDecayShape ? CheckDecayShape(times, values, fit, periods, options, warnings) : 1.0;
+        if (scale > 1)
+        {
+            // Birge ratio of the part-window decay rates applied to σ's row and column of the covariance.
+            var cov = (double[,])fit.Covariance.Clone();
+            for (var k = 0; k < 4; k++) { cov[1, k] *= scale; cov[k, 1] *= scale; }
+            fit = fit with { Covariance = cov };
+        }
+        return Derive(n, fit, warnings);
+    }
 
-        if (options.CheckDecayShape) CheckDecayShape(times, values, fit, periods, options, warnings);
-        return (Derive(n, fit, warnings), fit);
+    /// <summary>
+    /// Key frames of a predictive video codec (see <see cref="KeyFrameStructure"/>): when the residuals show them,
+    /// every mode is refitted on the key frames alone, starting from its all-frame fit, because the frames between
+    /// them carry an amplitude-dependent codec error that a fit absorbs into σ and f. The key frames sample the
+    /// motion below the modes' frequencies, which is harmless here: the fit uses the true frame times and starts
+    /// within a small fraction of the alias spacing of the solution. The all-frame values are kept in a note.
+    /// </summary>
+    private static void ApplyKeyFrames(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals, List<string> warnings)
+    {
+        var fitted = Enumerable.Range(0, fits.Count).Where(j => fits[j].IsUsable && internals[j] is not null).Select(j => (j, internals[j]!)).ToList();
+        var key = KeyFrameStructure.Detect(modal, fitted);
+        if (key is null) return;
+        var found = string.Create(System.Globalization.CultureInfo.InvariantCulture,
+            $"every {key.Period}th frame has {key.VarianceRatio:F2} times the residual variance of the others ({-key.Score:F1} standard errors): the key frames of a compressed video, between which the codec loses small motions");
+        if (key.Count < options.MinimumKeyFrames)
+        {
+            warnings.Add($"{found}; there are only {key.Count} key frames in the window (at least {options.MinimumKeyFrames} are needed to fit on them alone), so frequencies and decay rates may carry a codec error beyond their uncertainties; a lossless recording or a shorter keyframe interval avoids this");
+            return;
+        }
+        warnings.Add($"{found}; the modes were fitted on the {key.Count} key frames only");
+        foreach (var (j, all) in fitted)
+        {
+            var times = new List<double>(key.Count);
+            var values = new List<double>(key.Count);
+            for (var k = 0; k < modal.FrameCount; k++)
+                if (key.IsKey[k]) { times.Add(modal.TimesS[k]); values.Add(modal.AmplitudeM[k, j]); }
+            var fit = DampedSinusoidFit.Fit([.. times], [.. values], all.FrequencyHz, all.DecayRatePerS, options.MaximumIterations, options.CorrectForColouredResiduals);
+            var n = fits[j].N;
+            if (!fit.Usable)
+            {
+                fits[j] = fits[j] with { Warnings = [.. fits[j].Warnings, "the fit on the key frames alone failed; the values come from all frames and may carry the codec's error beyond their uncertainties"] };
+                continue;
+            }
+            var previous = fits[j];
+            var note = string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"fitted on the {key.Count} key frames (every {key.Period}th frame); all frames gave f = {previous.FrequencyHz.Value:G9} Hz and σ = {previous.DecayRatePerS.Value:G5} 1/s");
+            var periods = fit.FrequencyHz * (times[^1] - times[0]);
+            fits[j] = Finish(n, [.. times], [.. values], fit, periods, options, [note]);
+            internals[j] = fit;
+        }
     }
 
     private static ModeFit Derive(int n, SinusoidFit fit, List<string> warnings)
@@ -254,12 +309,16 @@ public static class ModeFitter
     /// Splits the window into 2 or 4 parts and refits each. Decay rates that disagree beyond the coverage factor
     /// (χ² test of a common value) mean a non-exponential decay — beating of two close frequencies (the two
     /// polarisations), or amplitude-dependent damping. A significant slope of frequency against time means an
-    /// amplitude-dependent frequency (tension modulation, REFERENCES.md §10) or beating.
+    /// amplitude-dependent frequency (tension modulation, REFERENCES.md §10) or beating. When the decay rates disagree,
+    /// the single-exponential model does not describe the data at the stated precision, and the whole-window u(σ) is
+    /// scaled by the Birge ratio √(χ²/(parts − 1)) (Birge 1932, Phys. Rev. 40:207; the scale factor of the Particle Data
+    /// Group's Review of Particle Physics, Introduction §5.2), the same treatment as the string model's χ²/ν widening.
+    /// Returns that factor (1 when the parts agree or the check cannot run).
     /// </summary>
-    private static void CheckDecayShape(double[] times, double[] values, SinusoidFit whole, double periods, ModeFitOptions options, List<string> warnings)
+    private static double CheckDecayShape(double[] times, double[] values, SinusoidFit whole, double periods, ModeFitOptions options, List<string> warnings)
     {
         var parts = periods >= 40 && times.Length >= 80 ? 4 : periods >= 12 && times.Length >= 40 ? 2 : 0;
-        if (parts == 0) return;
+        if (parts == 0) return 1.0;
         var t0 = times[0];
         var span = times[^1] - t0;
         var sub = new List<(double Centre, SinusoidFit Fit)>();
@@ -268,9 +327,18 @@ public static class ModeFitter
             var lo = t0 + span * p / parts;
             var hi = t0 + span * (p + 1) / parts;
             var idx = Enumerable.Range(0, times.Length).Where(i => times[i] >= lo && (times[i] < hi || p == parts - 1)).ToArray();
+            // The part's noise level near f is taken from the whole window: its narrow band (1/T bins) estimates the
+            // spectral density at f better than a part's band, whose coarser bins fold slow envelope errors into
+            // the part's own parameters and so understate its uncertainty.
             var fit = DampedSinusoidFit.Fit(idx.Select(i => times[i]).ToArray(), idx.Select(i => values[i]).ToArray(),
-                whole.FrequencyHz, whole.DecayRatePerS, options.MaximumIterations, options.CorrectForColouredResiduals);
-            if (!fit.Usable || !(fit.FrequencyUncertainty > 0) || !(fit.DecayRateUncertainty > 0)) return;
+                whole.FrequencyHz, whole.DecayRatePerS, options.MaximumIterations, correctForColouredResiduals: false);
+            if (whole.ColourFactor != 1.0 && fit.Usable)
+            {
+                var cov = (double[,])fit.Covariance.Clone();
+                for (var r = 0; r < 4; r++) for (var c = 0; c < 4; c++) cov[r, c] *= whole.ColourFactor;
+                fit = fit with { Covariance = cov, ColourFactor = whole.ColourFactor };
+            }
+            if (!fit.Usable || !(fit.FrequencyUncertainty > 0) || !(fit.DecayRateUncertainty > 0)) return 1.0;
             sub.Add((0.5 * (lo + hi), fit));
         }
         // A chi-square with parts−1 degrees of freedom at the probability that the coverage factor gives a Gaussian.
@@ -281,8 +349,12 @@ public static class ModeFitter
         foreach (var (_, fit) in sub) { var w = 1 / (fit.DecayRateUncertainty * fit.DecayRateUncertainty); sw += w; sws += w * fit.DecayRatePerS; }
         var meanSigma = sws / sw;
         var chi2 = sub.Sum(s => Math.Pow((s.Fit.DecayRatePerS - meanSigma) / s.Fit.DecayRateUncertainty, 2));
+        var birge = 1.0;
         if (chi2 > critical)
-            warnings.Add($"the decay is not a single exponential: decay rates in successive parts of the window run {string.Join(", ", sub.Select(s => s.Fit.DecayRatePerS.ToString("G3", System.Globalization.CultureInfo.InvariantCulture)))} 1/s (disagreeing beyond {options.ConsistencyCoverageFactor:G2} standard uncertainties); two close frequencies may be beating, or damping depends on amplitude");
+        {
+            birge = Math.Sqrt(chi2 / (parts - 1));
+            warnings.Add($"the decay is not a single exponential: decay rates in successive parts of the window run {string.Join(", ", sub.Select(s => s.Fit.DecayRatePerS.ToString("G3", System.Globalization.CultureInfo.InvariantCulture)))} 1/s (disagreeing beyond {options.ConsistencyCoverageFactor:G2} standard uncertainties); two close frequencies may be beating, or damping depends on amplitude; the decay rate's uncertainty was widened by the Birge ratio {birge.ToString("F2", System.Globalization.CultureInfo.InvariantCulture)}");
+        }
 
         // Weighted regression of frequency on time.
         double w0 = 0, wt = 0, wf = 0;
@@ -294,7 +366,7 @@ public static class ModeFitter
             stt += w * (c - wt / w0) * (c - wt / w0);
             stf += w * (c - wt / w0) * (fit.FrequencyHz - wf / w0);
         }
-        if (stt <= 0) return;
+        if (stt <= 0) return birge;
         var slope = stf / stt;
         var uSlope = Math.Sqrt(1 / stt);
         if (Math.Abs(slope) > options.ConsistencyCoverageFactor * uSlope)
@@ -304,6 +376,7 @@ public static class ModeFitter
             warnings.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture,
                 $"the frequency drifts from {first:G7} Hz to {last:G7} Hz across the window ({slope:G3} Hz/s, {Math.Abs(slope) / uSlope:F1} standard uncertainties): amplitude-dependent frequency (tension modulation at large amplitude) or beating; the reported frequency is a window average"));
         }
+        return birge;
     }
 
     private static string? RunCrossCheck(ModalCoordinates modal, List<ModeFit> fits, List<SinusoidFit?> raw, ModeFitOptions options, List<CrossCheck> checks)

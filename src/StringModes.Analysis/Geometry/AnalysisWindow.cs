@@ -67,7 +67,10 @@ public static class AnalysisWindow
 
     // Blur lowers a centroid's quality (peak and mass fall as the streak lengthens). Block means of the quality over
     // all moving marks are compared with the clip's settled level (median of the second half's blocks, with a
-    // tolerance of three median absolute deviations): the window starts at the first block that reaches it.
+    // tolerance of three robust standard deviations, 1.4826·MAD, and at least 0.002 so that a perfectly steady clip
+    // does not reject ordinary fluctuations): the window starts at the first block that reaches it. A blurred
+    // stretch left in the window lowers the measured amplitude there (the exposure average of a sinusoid is
+    // sinc(π·f·t_exposure) times its value) and so biases the decay rate.
     private static int SkipBlurredStart(Tracks tracks, int first, int block)
     {
         var means = new List<(int Start, double Mean)>();
@@ -83,7 +86,7 @@ public static class AnalysisWindow
         var late = means.Skip(means.Count / 2).Select(m => m.Mean).Order().ToArray();
         var median = late[late.Length / 2];
         var mad = late.Select(v => Math.Abs(v - median)).Order().ToArray()[late.Length / 2];
-        var threshold = median - 3 * mad - 0.005;
+        var threshold = median - Math.Max(3 * 1.4826 * mad, 0.002);
         foreach (var (start, mean) in means)
             if (mean >= threshold) return start;
         return first;
