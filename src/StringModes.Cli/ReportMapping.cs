@@ -112,6 +112,8 @@ internal static class ReportMapping
         if (w.Contains("truncated") || w.Contains("damaged")) return "Copy the clip again from the camera; only the frames before the damage were analysed.";
         if (w.Contains("beating") || w.Contains("single exponential")) return "Look at this mode's decay figure; pluck in one plane (two polarisations beat) and check the supports for loose contact.";
         if (w.Contains("drift")) return "Pluck more gently (large amplitude raises the tension), or analyse a later part of the clip.";
+        if (w.Contains("key frame")) return "For damping measurements record losslessly, or at a high bitrate with a short keyframe interval: between key frames the codec loses small motions.";
+        if (w.Contains("left out of the string model")) return "Check this mode's spectrum: a distortion product or leakage peak was taken for it; the string model used the other modes.";
         if (w.Contains("not white") || w.Contains("coloured")) return "No action needed: the uncertainties were adjusted for the correlated residuals.";
         if (w.Contains("skipped") || w.Contains("window ends")) return "No action needed: the analysis window was chosen automatically.";
         if (w.Contains("not seen") || w.Contains("hidden")) return "Keep hands and objects out of view and the marks inside the frame.";
