@@ -56,12 +56,13 @@ public static class ModeFitter
         var first = fits.FirstOrDefault(f => f.N == 1 && f.IsUsable);
         if (first is null) return;
         var f1 = first.FrequencyHz.Value;
-        for (var j = 0; j < fits.Count; j++)
+        // Each mode's refit reads only f1 and its own slot, so the modes are refitted in parallel.
+        Parallel.For(0, fits.Count, j =>
         {
             var n = fits[j].N;
-            if (n == 1) continue;
+            if (n == 1) return;
             var expected = n * f1;
-            if (fits[j].IsUsable && fits[j].FrequencyHz.Value >= 0.8 * expected && fits[j].FrequencyHz.Value <= 1.6 * expected) continue;
+            if (fits[j].IsUsable && fits[j].FrequencyHz.Value >= 0.8 * expected && fits[j].FrequencyHz.Value <= 1.6 * expected) return;
             var (times, values) = modal.ValidSeries(j);
             var (refit, raw) = FitSeriesCore(n, times, values, options, (0.8 * expected, 1.6 * expected));
             if (!refit.IsUsable || refit.FrequencyHz.Value < 0.8 * expected || refit.FrequencyHz.Value > 1.6 * expected)
@@ -74,14 +75,14 @@ public static class ModeFitter
                     fits[j] = ModeFit.Unfitted(n, FitStatus.NoSignal, [reason]);
                     internals[j] = null;
                 }
-                continue;
+                return;
             }
             var note = fits[j].IsUsable
                 ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"the strongest peak of this modal coordinate ({fits[j].FrequencyHz.Value:G6} Hz) is far from n·f1 = {expected:G6} Hz, most likely another mode leaking in; the mode was fitted at its own peak near n·f1 instead")
                 : string.Create(System.Globalization.CultureInfo.InvariantCulture, $"found by searching near n·f1 = {expected:G6} Hz");
             fits[j] = refit with { Warnings = [note, .. refit.Warnings] };
             internals[j] = raw;
-        }
+        });
     }
 
     /// <summary>Fits one series a(t) as mode <paramref name="n"/>. Times must be increasing; values finite.</summary>
