@@ -41,7 +41,7 @@ internal sealed class AnalyzeCommand(App app)
         warnings.AddRange(window.Notes);
         cancel.ThrowIfCancellationRequested();
 
-        var coordinates = StringFrame.Build(tracking.Tracks, rig.Length!.Value.Value, rig.ReadoutS, tracking.HeightPx, window.FirstFrame, window.LastFrame);
+        var coordinates = StringFrame.Build(tracking.Tracks, rig.Length!.Value.Value, rig.ReadoutS, tracking.HeightPx, window.FirstFrame, window.LastFrame, rig.Rig.Plane);
         var result = ModalAnalysis.Run(coordinates, new ModalAnalysisOptions
         {
             MaxModes = maxModes,
@@ -65,6 +65,7 @@ internal sealed class AnalyzeCommand(App app)
             new("harmonic_check_coverage_factor", k.ToString("G4", CultureInfo.InvariantCulture)),
             new("rig_file", a.Value("rig") ?? "none"),
             new("reference_frame", tracking.Marks.ReferenceFrame.ToString(CultureInfo.InvariantCulture)),
+            new("plane", rig.Rig.Plane is null ? "none: the image is taken as square to the rig" : "homography from four points of the rig file (plane_image_px → plane_m)"),
         };
         var t = tracking.Tracks;
         var input = new InputSummary(clip, t.FrameCount, 1 / MedianStep(t.TimesS), tracking.DeclaredFps, t.TimesS[^1] - t.TimesS[0],

@@ -29,6 +29,7 @@ internal sealed record Rig
     public double? CaptureFps { get; init; }
     public double? ReadoutS { get; init; }
     public IReadOnlyList<PixelPoint>? MarksPx { get; init; }
+    public StringModes.Analysis.Geometry.Homography? Plane { get; init; }
 
     public static Rig Load(string path)
         => Parse(InputFiles.ReadText(path, "a rig file", "give a rig file (JSON, at least { }; see docs/rig-file.md)"), path);
@@ -64,13 +65,33 @@ internal sealed record Rig
                 ReadoutS = f.OptionalQuantity("readout", Dimension.Time, 0, false, "give the rolling-shutter readout time such as \"20 ms\"", Limits.ReadoutS),
                 MarksPx = f.OptionalPoints("marks_px", "list the marks as [[x, y], ...] in pixels, ends first and last", 0, Limits.PixelCoordinate),
             };
+            var planeImage = f.OptionalPoints("plane_image_px", "list four points of the rig plane as [[x, y], ...] in pixels", 0, Limits.PixelCoordinate);
+            var planeMetres = f.OptionalPoints("plane_m", "list the same four points' positions on the rig plane as [[x, y], ...] in metres", -Limits.LengthM, Limits.LengthM);
             f.RefuseUnknown();
+            rig = rig with { Plane = PlaneFrom(path, planeImage, planeMetres) };
             if (rig.MarksPx is { Count: < 5 })
                 throw new InputFileException($"{path}: marks_px lists {rig.MarksPx.Count} points; give the two ends and at least 3 moving marks, in order along the string");
             // Half of a pair is not enough to give the linear density; silently ignoring it would lose the tension.
             Pair(path, rig.SampleMassKg, "sample_mass", rig.SampleLengthM, "sample_length", "μ = sample mass / sample length");
             Pair(path, rig.MaterialDensityKgPerM3, "material_density", rig.DiameterM, "diameter", "μ = ρπd²/4");
             return rig;
+        }
+    }
+
+    private static StringModes.Analysis.Geometry.Homography? PlaneFrom(string path, IReadOnlyList<PixelPoint>? image, IReadOnlyList<PixelPoint>? metres)
+    {
+        if (image is null && metres is null) return null;
+        if (image is null || metres is null)
+            throw new InputFileException($"{path}: {(image is null ? "plane_m" : "plane_image_px")} is given without {(image is null ? "plane_image_px" : "plane_m")}; give both (four points in pixels and the same points in metres on the rig plane) or neither");
+        if (image.Count != 4 || metres.Count != 4)
+            throw new InputFileException($"{path}: plane_image_px and plane_m must list exactly four points each (got {image.Count} and {metres.Count}); give the four corners of a known rectangle on the rig plane");
+        try
+        {
+            return StringModes.Analysis.Geometry.Homography.FromPoints(image.Select(p => (p.X, p.Y)).ToList(), metres.Select(p => (p.X, p.Y)).ToList());
+        }
+        catch (ArgumentException)
+        {
+            throw new InputFileException($"{path}: the four plane points are degenerate (three lie on one line, or two coincide); choose four corners of a rectangle on the rig plane");
         }
     }
 

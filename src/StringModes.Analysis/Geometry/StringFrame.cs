@@ -17,15 +17,18 @@ public static class StringFrame
     /// <param name="imageHeightPx">Frame height in rows (for row times).</param>
     /// <param name="firstFrame">First frame of the analysis window.</param>
     /// <param name="lastFrame">Last frame of the analysis window.</param>
-    public static StringCoordinates Build(Tracks tracks, double lengthM, double readoutS, int imageHeightPx, int firstFrame, int lastFrame)
+    /// <param name="plane">Optional image → rig-plane homography (camera not square to the rig); default none.</param>
+    public static StringCoordinates Build(Tracks tracks, double lengthM, double readoutS, int imageHeightPx, int firstFrame, int lastFrame, Homography? plane = null)
     {
         if (!(lengthM > 0) || !double.IsFinite(lengthM)) throw new ArgumentOutOfRangeException(nameof(lengthM), "the vibrating length must be a positive number of metres");
         if (tracks.MarkCount < 3) throw new ArgumentException("tracks need two ends and at least one moving mark", nameof(tracks));
         var last = tracks.MarkCount - 1;
-        var e0x = Median(tracks.XPx, 0, firstFrame, lastFrame);
-        var e0y = Median(tracks.YPx, 0, firstFrame, lastFrame);
-        var e1x = Median(tracks.XPx, last, firstFrame, lastFrame);
-        var e1y = Median(tracks.YPx, last, firstFrame, lastFrame);
+        // Geometry is taken on the rig plane when a homography is given (rows, for the rolling shutter, stay in pixels).
+        var (gx, gy) = plane is null ? (tracks.XPx, tracks.YPx) : MapToPlane(tracks, plane);
+        var e0x = Median(gx, 0, firstFrame, lastFrame);
+        var e0y = Median(gy, 0, firstFrame, lastFrame);
+        var e1x = Median(gx, last, firstFrame, lastFrame);
+        var e1y = Median(gy, last, firstFrame, lastFrame);
         var span = Math.Sqrt((e1x - e0x) * (e1x - e0x) + (e1y - e0y) * (e1y - e0y));
         var ax = (e1x - e0x) / span;
         var ay = (e1y - e0y) / span;
@@ -51,13 +54,14 @@ public static class StringFrame
             var along = new List<double>();
             for (var k = 0; k < frames; k++)
             {
-                var x = tracks.XPx[firstFrame + k, mark];
-                var y = tracks.YPx[firstFrame + k, mark];
+                var x = gx[firstFrame + k, mark];
+                var y = gy[firstFrame + k, mark];
+                var row = tracks.YPx[firstFrame + k, mark];
                 var q = tracks.Quality[firstFrame + k, mark];
                 valid[k] = q > 0 && double.IsFinite(x) && double.IsFinite(y);
                 quality[k] = valid[k] ? q : 0;
                 values[k] = valid[k] ? ((x - e0x) * nx + (y - e0y) * ny) / pixelsPerMetre : double.NaN;
-                sampleTimes[k] = times[k] + (valid[k] && readoutS > 0 ? y / imageHeightPx * readoutS : 0);
+                sampleTimes[k] = times[k] + (valid[k] && readoutS > 0 ? row / imageHeightPx * readoutS : 0);
                 if (valid[k]) along.Add(((x - e0x) * ax + (y - e0y) * ay) / pixelsPerMetre);
             }
             positions[i] = along.Count > 0 ? Math.Clamp(MedianOf(along), 1e-6 * lengthM, lengthM * (1 - 1e-6)) : lengthM * mark / (moving + 1.0);
@@ -77,6 +81,20 @@ public static class StringFrame
             }
         }
         return new StringCoordinates(lengthM, positions, times, displacement, weight);
+    }
+
+    private static (double[,] X, double[,] Y) MapToPlane(Tracks tracks, Homography plane)
+    {
+        var x = new double[tracks.FrameCount, tracks.MarkCount];
+        var y = new double[tracks.FrameCount, tracks.MarkCount];
+        for (var k = 0; k < tracks.FrameCount; k++)
+            for (var i = 0; i < tracks.MarkCount; i++)
+            {
+                var px = tracks.XPx[k, i];
+                var py = tracks.YPx[k, i];
+                (x[k, i], y[k, i]) = double.IsFinite(px) && double.IsFinite(py) ? plane.Map(px, py) : (double.NaN, double.NaN);
+            }
+        return (x, y);
     }
 
     // Cubic Lagrange interpolation at t from the four valid samples around index k (sample times are the row
