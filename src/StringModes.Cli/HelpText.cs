@@ -114,6 +114,7 @@ internal static class HelpText
                                    slow-motion file whose declared rate is not the capture rate
           --readout-ms R           rolling-shutter readout time in ms, 0-1000 (default 0: global shutter)
           --force                  replace the contents of an existing DIR
+          --json                   print a JSON summary (frames, marks, rates, files, warnings) instead of one line
 
         Examples:
           stringmodes track clip.mp4 --out tracking

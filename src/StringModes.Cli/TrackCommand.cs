@@ -7,7 +7,7 @@ internal sealed class TrackCommand(App app)
 {
     public static readonly string[] ValueOptions = ["out", "rig", "length", "length-uncertainty", "capture-fps", "readout-ms"];
 
-    public static readonly string[] Flags = ["force"];
+    public static readonly string[] Flags = ["force", "json"];
 
     public int Run(string[] args, CancellationToken cancel)
     {
@@ -25,7 +25,43 @@ internal sealed class TrackCommand(App app)
         output.Commit();
         foreach (var w in tracking.Warnings) app.Warn(w);
         var t = tracking.Tracks;
-        app.Out.WriteLine(FormattableString.Invariant($"tracked {t.MarkCount} marks (ends included) over {t.FrameCount} frames; wrote {Path.Combine(outDir, "tracks.csv")}"));
+        if (a.Flag("json")) WriteJson(app.Out, a.Positionals[0], outDir, tracking);
+        else app.Out.WriteLine(FormattableString.Invariant($"tracked {t.MarkCount} marks (ends included) over {t.FrameCount} frames; wrote {Path.Combine(outDir, "tracks.csv")}"));
         return ExitCodes.Success;
+    }
+
+    /// <summary>A machine-readable summary of the tracking run on stdout (fields in docs/output-files.md).</summary>
+    private static void WriteJson(TextWriter output, string clip, string outDir, Video.Tracking.TrackingResult tracking)
+    {
+        var t = tracking.Tracks;
+        using var buffer = new MemoryStream();
+        using (var w = new System.Text.Json.Utf8JsonWriter(buffer, new System.Text.Json.JsonWriterOptions { Indented = true }))
+        {
+            static void Number(System.Text.Json.Utf8JsonWriter w, string name, double v)
+            {
+                if (double.IsFinite(v)) w.WriteNumber(name, v);
+                else w.WriteNull(name);
+            }
+            w.WriteStartObject();
+            w.WriteString("tool", "stringmodes " + App.Version);
+            w.WriteString("clip", clip);
+            w.WriteNumber("frames", t.FrameCount);
+            w.WriteNumber("marks_including_ends", t.MarkCount);
+            Number(w, "capture_fps", tracking.CaptureFps);
+            Number(w, "declared_fps", tracking.DeclaredFps);
+            Number(w, "duration_s", t.FrameCount > 1 ? t.TimesS[^1] - t.TimesS[0] : 0);
+            w.WriteNumber("width_px", tracking.WidthPx);
+            w.WriteNumber("height_px", tracking.HeightPx);
+            w.WriteNumber("reference_frame", tracking.Marks.ReferenceFrame);
+            w.WriteStartArray("files");
+            w.WriteStringValue(Path.Combine(outDir, "tracks.csv"));
+            w.WriteStringValue(Path.Combine(outDir, "marks-found.png"));
+            w.WriteEndArray();
+            w.WriteStartArray("warnings");
+            foreach (var warning in tracking.Warnings.Distinct()) w.WriteStringValue(warning);
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        output.WriteLine(System.Text.Encoding.UTF8.GetString(buffer.ToArray()));
     }
 }
