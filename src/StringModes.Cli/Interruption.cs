@@ -73,7 +73,7 @@ internal sealed class Interruption : IDisposable
     private readonly Action<int> _exit;
     private readonly TimeSpan _grace;
     private readonly List<PosixSignalRegistration> _registrations = [];
-    private Timer? _timer;
+    private readonly ManualResetEventSlim _stopped = new();
     private int _signals;
     private bool _finished;
 
@@ -105,7 +105,13 @@ internal sealed class Interruption : IDisposable
         _partial.Interrupt();
         if (Interlocked.Increment(ref _signals) == 1)
         {
-            _timer = new Timer(_ => ForceExit(), null, _grace, Timeout.InfiniteTimeSpan);
+            // A dedicated thread, not a thread-pool timer: when the pool is saturated (parallel fits, blocked
+            // workers) a timer callback can be delayed for seconds, and the forced exit must come on time.
+            var watchdog = new Thread(() =>
+            {
+                if (!_stopped.Wait(_grace)) ForceExit();
+            }) { IsBackground = true, Name = "interrupt watchdog" };
+            watchdog.Start();
             try { _cancel.Cancel(); }
             catch (AggregateException) { }
         }
@@ -116,6 +122,7 @@ internal sealed class Interruption : IDisposable
     public void Finished()
     {
         lock (_partial.Gate) _finished = true;
+        _stopped.Set();
     }
 
     private void ForceExit()
@@ -133,7 +140,7 @@ internal sealed class Interruption : IDisposable
 
     public void Dispose()
     {
-        _timer?.Dispose();
+        _stopped.Set();
         foreach (var r in _registrations) r.Dispose();
     }
 }
