@@ -61,38 +61,8 @@ internal static class DampedSinusoidFit
         var y = Vector<double>.Build.Dense(n, i => values[i] / scale);
         var nu0 = seedFrequencyHz * halfSpan; // cycles per half record
 
-        // Parameters p = (Δν, s, a, b, c): frequency ν0 + Δν in cycles per half record, decay s = σ·halfSpan.
-        Vector<double> Model(Vector<double> p, Vector<double> xs)
-        {
-            var result = Vector<double>.Build.Dense(xs.Count);
-            var w = 2.0 * Math.PI * (nu0 + p[0]);
-            for (var i = 0; i < xs.Count; i++)
-            {
-                var e = Math.Exp(-p[1] * xs[i]);
-                result[i] = e * (p[2] * Math.Cos(w * xs[i]) + p[3] * Math.Sin(w * xs[i])) + p[4];
-            }
-            return result;
-        }
-
-        Matrix<double> Jacobian(Vector<double> p, Vector<double> xs)
-        {
-            var jac = Matrix<double>.Build.Dense(xs.Count, ParameterCount);
-            var w = 2.0 * Math.PI * (nu0 + p[0]);
-            for (var i = 0; i < xs.Count; i++)
-            {
-                var xi = xs[i];
-                var e = Math.Exp(-p[1] * xi);
-                var c = Math.Cos(w * xi);
-                var s = Math.Sin(w * xi);
-                jac[i, 0] = e * (-p[2] * s + p[3] * c) * 2.0 * Math.PI * xi;
-                jac[i, 1] = -xi * e * (p[2] * c + p[3] * s);
-                jac[i, 2] = e * c;
-                jac[i, 3] = e * s;
-                jac[i, 4] = 1;
-            }
-            return jac;
-        }
-
+        // Parameters p = (Δν, s, a, b, c): frequency ν0 + Δν in cycles per half record, decay s = σ·halfSpan
+        // (model and Jacobian: DampedSinusoidLm.Row).
         // Amplitudes of the seed by linear least squares at the seed frequency and decay.
         var s0 = seedDecayRatePerS * halfSpan;
         var basis = Matrix<double>.Build.Dense(n, 3, (i, k) =>
@@ -110,10 +80,14 @@ internal static class DampedSinusoidFit
         if (exit == DampedSinusoidLm.Exit.InvalidValues) return SinusoidFit.Failed(FitStatus.Singular);
         var status = exit == DampedSinusoidLm.Exit.IterationLimit ? FitStatus.IterationLimit : FitStatus.Converged;
         if (p.Any(v => !double.IsFinite(v))) return SinusoidFit.Failed(FitStatus.Singular);
-        var pv = Vector<double>.Build.DenseOfArray(p);
-
-        var jac = Jacobian(pv, x);
-        var residual = y - Model(pv, x);
+        var jac = Matrix<double>.Build.Dense(n, ParameterCount);
+        var residual = Vector<double>.Build.Dense(n);
+        var row = new double[ParameterCount];
+        for (var i = 0; i < n; i++)
+        {
+            residual[i] = y[i] - DampedSinusoidLm.Row(x[i], nu0, p, row);
+            for (var k = 0; k < ParameterCount; k++) jac[i, k] = row[k];
+        }
         var rss = residual.DotProduct(residual);
         var normal = jac.TransposeThisAndMultiply(jac);
         var eig = normal.Evd().EigenValues.Real();

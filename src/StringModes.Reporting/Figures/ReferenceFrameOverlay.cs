@@ -29,25 +29,22 @@ public static class ReferenceFrameOverlay
     {
         ArgumentNullException.ThrowIfNull(frame);
         options ??= FigureOptions.Default;
-        using var full = Decode(frame);
+        using var image = Decode(frame);
         // The frame is drawn at figure size: it is resampled once to that size (times the raster scale), so the
         // PNG and the SVG embed a picture no larger than they show; the full-size frame is its own output file.
-        using var shown = Downscaled(full, options);
-        var image = full;
+        using var shown = Downscaled(image, options);
         const string caption = "Reference frame with the string ends, the string axis, each mark's rest position and the extent of its track during the analysis.";
 
         return FigureRenderer.Render(Name, caption, options, canvas =>
         {
-            var availableW = options.WidthPx - 2 * Side;
-            var availableH = options.HeightPx - Top - LegendStrip;
-            var k = Math.Min(availableW / image.Width, availableH / image.Height);
+            var k = DrawScale(image, options);
             var w = image.Width * k;
             var h = image.Height * k;
             var left = (options.WidthPx - w) / 2;
             var rect = new SKRect(left, Top, left + w, Top + h);
             Axes.DrawTitle(canvas, Side, "Reference frame",
                 FigureText.Invariant($"{image.Width} × {image.Height} px, {frame.Marks.Count} marks; track extents over the analysis window"));
-            canvas.DrawImage(shown ?? full, rect, new SKSamplingOptions(SKFilterMode.Linear));
+            canvas.DrawImage(shown ?? image, rect, new SKSamplingOptions(SKFilterMode.Linear));
             SKPoint P(ImagePoint p) => new(rect.Left + (float)(p.XPx * k), rect.Top + (float)(p.YPx * k));
 
             var count = canvas.Save();
@@ -100,9 +97,13 @@ public static class ReferenceFrameOverlay
         });
     }
 
+    // Figure pixels per frame pixel: the frame fills the space between the title band, the legend strip and the margins.
+    private static float DrawScale(SKImage image, FigureOptions options)
+        => Math.Min((options.WidthPx - 2 * Side) / image.Width, (options.HeightPx - Top - LegendStrip) / image.Height);
+
     private static SKImage? Downscaled(SKImage image, FigureOptions options)
     {
-        var k = Math.Min((options.WidthPx - 2 * Side) / image.Width, (options.HeightPx - Top - LegendStrip) / image.Height) * options.Scale;
+        var k = DrawScale(image, options) * options.Scale;
         if (k >= 0.9) return null;
         var info = new SKImageInfo(Math.Max(1, (int)Math.Ceiling(image.Width * k)), Math.Max(1, (int)Math.Ceiling(image.Height * k)), SKColorType.Rgba8888, SKAlphaType.Opaque);
         using var bitmap = new SKBitmap(info);

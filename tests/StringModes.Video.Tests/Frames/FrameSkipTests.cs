@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using OpenCvSharp;
 using StringModes.Video.Frames;
 using StringModes.Video.Synthesis;
@@ -9,15 +8,6 @@ namespace StringModes.Video.Tests.Frames;
 /// <summary>Skipping to a frame returns the same pixels as reading every frame up to it.</summary>
 public class FrameSkipTests
 {
-    private static void Ffmpeg(string arguments)
-    {
-        using var p = Process.Start(new ProcessStartInfo("ffmpeg", "-v error -y " + arguments) { RedirectStandardError = true })
-            ?? throw new InvalidOperationException("ffmpeg could not be started; the test set-up (bash build.sh test) installs it");
-        var error = p.StandardError.ReadToEnd();
-        p.WaitForExit();
-        Assert.True(p.ExitCode == 0, $"ffmpeg failed: {error}");
-    }
-
     private static Mat InOrder(string path, int index)
     {
         using var source = FrameSources.Open(path, 400);
@@ -46,7 +36,7 @@ public class FrameSkipTests
         else
         {
             ClipSynthesiser.Run(scene, temp.File("seq"), new SynthesisOptions { Seed = 4 }, "s.json");
-            Ffmpeg($"-framerate 400 -i {temp.File("seq")}/frame_%06d.png -c:v {codec} -crf 18 -g 100 -pix_fmt yuv420p {temp.File(file)}");
+            Ffmpeg.Run($"-framerate 400 -i {temp.File("seq")}/frame_%06d.png -c:v {codec} -crf 18 -g 100 -pix_fmt yuv420p {temp.File(file)}");
         }
         var path = temp.File(file);
         const int index = 37;

@@ -39,3 +39,16 @@ internal sealed class TempFolder : IDisposable
         catch (IOException) { }
     }
 }
+
+/// <summary>Debian's ffmpeg, for encoding phone-codec fixtures (installed by <c>bash build.sh test</c>).</summary>
+internal static class Ffmpeg
+{
+    public static void Run(string arguments)
+    {
+        using var p = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo("ffmpeg", "-v error -y " + arguments) { RedirectStandardError = true })
+            ?? throw new InvalidOperationException("ffmpeg could not be started; the test set-up (bash build.sh test) installs it");
+        var error = p.StandardError.ReadToEnd();
+        p.WaitForExit();
+        Assert.True(p.ExitCode == 0, $"ffmpeg failed: {error}");
+    }
+}

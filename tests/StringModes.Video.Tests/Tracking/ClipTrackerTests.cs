@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using StringModes.Video.Synthesis;
 using StringModes.Video.Tests.Synthesis;
 using StringModes.Video.Tracking;
@@ -27,15 +26,6 @@ public class ClipTrackerTests
         return (Math.Sqrt(sum / Math.Max(1, n)), lost, t.FrameCount);
     }
 
-    private static void Ffmpeg(string arguments)
-    {
-        using var p = Process.Start(new ProcessStartInfo("ffmpeg", "-v error -y " + arguments) { RedirectStandardError = true })
-            ?? throw new InvalidOperationException("ffmpeg could not be started; the test set-up (bash build.sh test) installs it");
-        var error = p.StandardError.ReadToEnd();
-        p.WaitForExit();
-        Assert.True(p.ExitCode == 0, $"ffmpeg failed: {error}");
-    }
-
     // Lossy phone codecs: tolerance 0.1 px RMS. The issue's 0.05 px target is for high-quality MPEG-4 at 720p
     // (bench/StringModes.Bench.Tracking); these 320×120 fixtures are encoded at CRF 18, a common "visually lossless"
     // setting (common practice), and small marks suffer more from chroma subsampling.
@@ -47,7 +37,7 @@ public class ClipTrackerTests
         var scene = SceneFixtures.Parse(Scene);
         using var temp = new TempFolder();
         ClipSynthesiser.Run(scene, temp.File("seq"), new SynthesisOptions { Seed = 4 }, "s.json");
-        Ffmpeg($"-framerate 400 -i {temp.File("seq")}/frame_%06d.png -c:v {codec} -crf 18 -pix_fmt yuv420p {(codec == "libx265" ? "-x265-params log-level=error" : "")} {temp.File(file)}");
+        Ffmpeg.Run($"-framerate 400 -i {temp.File("seq")}/frame_%06d.png -c:v {codec} -crf 18 -pix_fmt yuv420p {(codec == "libx265" ? "-x265-params log-level=error" : "")} {temp.File(file)}");
         var result = ClipTracker.Track(temp.File(file), new TrackingOptions { ReferenceTimeS = 0.1 });
         var (rms, lost, frames) = Compare(result, temp.File("seq.truth-tracks.csv"));
         Assert.Equal(scene.FrameCount, frames);
