@@ -33,7 +33,7 @@ internal sealed class AnalyzeCommand(App app)
         using var output = new OutputFolder(outDir, a.Flag("force"));
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var tracking = TrackingStep.Run(app, clip, rig, output, cancel);
-        app.Timing("tracking (decode, mark finding, tracking)", clock.Elapsed);
+        app.Timing(tracking.LumaOnly ? "tracking (decode of the luma plane, mark finding, tracking)" : "tracking (decode in colour, mark finding, tracking)", clock.Elapsed);
         clock.Restart();
         var warnings = new List<string>(tracking.Warnings);
         warnings.AddRange(rig.Notes);

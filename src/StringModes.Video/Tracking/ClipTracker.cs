@@ -21,6 +21,9 @@ public sealed record TrackingOptions
     /// <summary>Time into the clip of the frame the marks are found on, s; default 0.5 (past a blurred release, before the motion dies).</summary>
     public double ReferenceTimeS { get; init; } = 0.5;
 
+    /// <summary>Follow the marks on the decoded luma plane alone where the clip and the marks allow it (faster; see <see cref="LumaTracking"/>); false always decodes colour.</summary>
+    public bool LumaWhenPossible { get; init; } = true;
+
     /// <summary>Automatic mark-finding options.</summary>
     public MarkFinderOptions Finder { get; init; } = new();
 }
@@ -34,8 +37,9 @@ public sealed record TrackingOptions
 /// <param name="WidthPx">Frame width.</param>
 /// <param name="HeightPx">Frame height.</param>
 /// <param name="Warnings">Plain-language warnings.</param>
+/// <param name="LumaOnly">True when the marks were followed on the luma plane alone.</param>
 public sealed record TrackingResult(Tracks Tracks, FoundMarks Marks, byte[] ReferenceFramePng, double CaptureFps, double DeclaredFps,
-    int WidthPx, int HeightPx, IReadOnlyList<string> Warnings);
+    int WidthPx, int HeightPx, IReadOnlyList<string> Warnings, bool LumaOnly = false);
 
 /// <summary>
 /// Tracking of a whole clip: opens the frames, finds the marks on a reference frame (or takes them from the rig),
@@ -48,6 +52,7 @@ public static class ClipTracker
     {
         var warnings = new List<string>();
         FoundMarks marks;
+        LumaTracking? luma = null;
         byte[] referencePng;
         double declaredFps;
         int width, height, declaredCount;
@@ -95,6 +100,7 @@ public static class ClipTracker
                         "use small marks that contrast with string and background, or list their pixel positions in the rig file", png);
                 }
                 referencePng = MarkFinder.To8BitBgr(reference).ImEncode(".png");
+                if (options.LumaWhenPossible && source is VideoFileSource) luma = LumaTracking.TryPlan(path, reference, referenceIndex, marks);
             }
         }
 
@@ -110,15 +116,17 @@ public static class ClipTracker
             var alongHalf = 0.45 * Math.Min(previous, next);
             // A string's swing rarely exceeds a tenth of its span; marks beyond that are not followed.
             var transverseHalf = Math.Max(8 * marks.Marks[i].RadiusPx, 0.12 * span);
-            trackers[i] = new MarkTracker(marks.Marks[i], axisX, axisY, alongHalf, transverseHalf);
+            trackers[i] = new MarkTracker(luma is null ? marks.Marks[i] : luma.OnLuma(marks.Marks[i]), axisX, axisY, alongHalf, transverseHalf);
         }
 
         var times = new List<double>();
         var xs = new List<double[]>();
         var ys = new List<double[]>();
         var qs = new List<double[]>();
-        using (var source = FrameSources.Open(path, options.CaptureFps))
+        using (var source = (luma is null ? null : VideoFileSource.TryOpenLuma(path)) ?? FrameSources.Open(path, options.CaptureFps))
         {
+            if (luma is not null && source is not VideoFileSource { LumaOnly: true })
+                throw new InvalidOperationException("the clip's luma plane could be opened for the reference frame but not for tracking");
             var scale = options.CaptureFps is { } capture && !double.IsNaN(source.DeclaredFps) ? source.DeclaredFps / capture : 1.0;
             var total = source.DeclaredFrameCount > 0 ? source.DeclaredFrameCount : 0;
             using var pipeline = new FramePipeline(source, cancel: cancel);
@@ -153,7 +161,7 @@ public static class ClipTracker
             if (lost > 0.2 * frameCount)
                 warnings.Add(string.Create(CultureInfo.InvariantCulture, $"mark {i} was not seen in {lost} of {frameCount} frames (hidden, blurred or out of frame); its gaps are left out of the fit"));
         }
-        return new TrackingResult(tracks, marks, referencePng, captureFps, declaredFps, width, height, warnings);
+        return new TrackingResult(tracks, marks, referencePng, captureFps, declaredFps, width, height, warnings, luma is not null);
     }
 
     private static IEnumerable<string> TimeBaseWarnings(string path, double[] times, double declaredFps, double? captureFps)
