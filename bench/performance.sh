@@ -6,9 +6,9 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 runs=${1:-3}
 command -v /usr/bin/time >/dev/null || { echo "performance.sh: needs GNU time (apt-get install time)" >&2; exit 1; }
-dotnet build src/StringModes.Cli -c Release -v quiet -nologo >/dev/null
+bash build.sh cli   # the same ready-to-run tool that `bash build.sh demo` builds
 dotnet build bench/StringModes.Bench.Tracking -c Release -v quiet -nologo >/dev/null
-cli=src/StringModes.Cli/bin/Release/net10.0/stringmodes
+cli=bin/stringmodes/stringmodes
 bench=bench/StringModes.Bench.Tracking/bin/Release/net10.0/StringModes.Bench.Tracking
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT

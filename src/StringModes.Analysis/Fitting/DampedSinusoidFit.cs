@@ -1,4 +1,5 @@
 using MathNet.Numerics.LinearAlgebra;
+using StringModes.Analysis.Modal;
 
 namespace StringModes.Analysis.Fitting;
 
@@ -57,44 +58,59 @@ internal static class DampedSinusoidFit
         foreach (var v in values) scale = Math.Max(scale, Math.Abs(v));
         if (!(scale > 0)) return SinusoidFit.Failed(FitStatus.NoSignal);
 
-        var x = Vector<double>.Build.Dense(n, i => (timesS[i] - centre) / halfSpan);
-        var y = Vector<double>.Build.Dense(n, i => values[i] / scale);
+        var x = new double[n];
+        var y = new double[n];
+        for (var i = 0; i < n; i++)
+        {
+            x[i] = (timesS[i] - centre) / halfSpan;
+            y[i] = values[i] / scale;
+        }
         var nu0 = seedFrequencyHz * halfSpan; // cycles per half record
 
         // Parameters p = (Δν, s, a, b, c): frequency ν0 + Δν in cycles per half record, decay s = σ·halfSpan
         // (model and Jacobian: DampedSinusoidLm.Row).
         // Amplitudes of the seed by linear least squares at the seed frequency and decay.
         var s0 = seedDecayRatePerS * halfSpan;
-        var basis = Matrix<double>.Build.Dense(n, 3, (i, k) =>
+        var seed = new SmallLeastSquares(n, 3);
+        for (var i = 0; i < n; i++)
         {
             var e = Math.Exp(-s0 * x[i]);
-            return k switch { 0 => e * Math.Cos(2 * Math.PI * nu0 * x[i]), 1 => e * Math.Sin(2 * Math.PI * nu0 * x[i]), _ => 1.0 };
-        });
-        var qr = basis.QR();
-        if (!qr.IsFullRank) return SinusoidFit.Failed(FitStatus.Singular);
-        var lin = qr.Solve(y);
-        var start = Vector<double>.Build.DenseOfArray([0.0, s0, lin[0], lin[1], lin[2]]);
+            var (sin, cos) = Math.SinCos(2 * Math.PI * nu0 * x[i]);
+            var r = seed.Row(i);
+            r[0] = e * cos;
+            r[1] = e * sin;
+            r[2] = 1.0;
+            seed.Rhs[i] = y[i];
+        }
+        var lin = new double[3];
+        if (!(seed.Solve(n, lin) < 1e14)) return SinusoidFit.Failed(FitStatus.Singular);
 
-        var p = start.ToArray();
-        var (exit, iterations) = DampedSinusoidLm.Minimise(x.AsArray() ?? x.ToArray(), y.AsArray() ?? y.ToArray(), nu0, p, maximumIterations);
+        double[] p = [0.0, s0, lin[0], lin[1], lin[2]];
+        var (exit, iterations) = DampedSinusoidLm.Minimise(x, y, nu0, p, maximumIterations);
         if (exit == DampedSinusoidLm.Exit.InvalidValues) return SinusoidFit.Failed(FitStatus.Singular);
         var status = exit == DampedSinusoidLm.Exit.IterationLimit ? FitStatus.IterationLimit : FitStatus.Converged;
         if (p.Any(v => !double.IsFinite(v))) return SinusoidFit.Failed(FitStatus.Singular);
-        var jac = Matrix<double>.Build.Dense(n, ParameterCount);
-        var residual = Vector<double>.Build.Dense(n);
-        var row = new double[ParameterCount];
+        // Jacobian (row-major n × 5) and residuals at the solution; JᵀJ accumulated directly.
+        var jac = new double[n * ParameterCount];
+        var residual = new double[n];
+        var jtj = new double[ParameterCount * ParameterCount];
+        double rss = 0;
         for (var i = 0; i < n; i++)
         {
+            var row = jac.AsSpan(i * ParameterCount, ParameterCount);
             residual[i] = y[i] - DampedSinusoidLm.Row(x[i], nu0, p, row);
-            for (var k = 0; k < ParameterCount; k++) jac[i, k] = row[k];
+            rss += residual[i] * residual[i];
+            for (var j = 0; j < ParameterCount; j++)
+                for (var k = j; k < ParameterCount; k++) jtj[j * ParameterCount + k] += row[j] * row[k];
         }
-        var rss = residual.DotProduct(residual);
-        var normal = jac.TransposeThisAndMultiply(jac);
-        var eig = normal.Evd().EigenValues.Real();
+        for (var j = 0; j < ParameterCount; j++)
+            for (var k = 0; k < j; k++) jtj[j * ParameterCount + k] = jtj[k * ParameterCount + j];
+        var normal = Matrix<double>.Build.Dense(ParameterCount, ParameterCount, jtj);
+        var eig = normal.Evd(Symmetricity.Symmetric).EigenValues.Real();
         if (!(eig.Minimum() > eig.Maximum() * 1e-14)) return SinusoidFit.Failed(FitStatus.Singular);
         var f = (nu0 + p[0]) / halfSpan;
         // Residuals at rounding level (noise-free data) carry no statistical information about colour.
-        var colour = correctForColouredResiduals && rss > 1e-20 * n ? ResidualColour.Estimate(x, residual, jac, nu0 + p[0]).VarianceFactor : 1.0;
+        var colour = correctForColouredResiduals && rss > 1e-20 * n ? ResidualColour.Estimate(x, residual, jac, ParameterCount, nu0 + p[0]).VarianceFactor : 1.0;
         var covScaled = normal.Inverse() * (rss / (n - ParameterCount) * colour);
 
         // Physical parameters (f, σ, A(0), φ(0)) and the Jacobian of that map for the covariance.

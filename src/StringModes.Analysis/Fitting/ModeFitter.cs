@@ -271,21 +271,30 @@ public static class ModeFitter
         var centres = new List<double>();
         var logs = new List<double>();
         var weights = new List<double>();
+        var segment = new Modal.SmallLeastSquares(times.Length, 3);
+        Span<double> x = stackalloc double[3];
+        var next = 0;
         for (var s = 0; s < segments; s++)
         {
             var lo = t0 + span * s / segments;
             var hi = t0 + span * (s + 1) / segments;
-            var idx = Enumerable.Range(0, times.Length).Where(i => times[i] >= lo && (times[i] < hi || s == segments - 1)).ToArray();
-            if (idx.Length < 4) continue;
+            // Times are increasing: the segment is one run of samples.
+            while (next < times.Length && times[next] < lo) next++;
+            var first = next;
+            while (next < times.Length && (times[next] < hi || s == segments - 1)) next++;
+            var count = next - first;
+            if (count < 4) continue;
             var tc = 0.5 * (lo + hi);
-            var a = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(idx.Length, 3, (r, c) =>
+            for (var r = 0; r < count; r++)
             {
-                var arg = 2 * Math.PI * frequencyHz * (times[idx[r]] - tc);
-                return c switch { 0 => Math.Cos(arg), 1 => Math.Sin(arg), _ => 1.0 };
-            });
-            var qr = a.QR();
-            if (!qr.IsFullRank) continue;
-            var x = qr.Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.DenseOfEnumerable(idx.Select(i => values[i])));
+                var (sin, cos) = Math.SinCos(2 * Math.PI * frequencyHz * (times[first + r] - tc));
+                var row = segment.Row(r);
+                row[0] = cos;
+                row[1] = sin;
+                row[2] = 1.0;
+                segment.Rhs[r] = values[first + r];
+            }
+            if (!(segment.Solve(count, x) < 1e14)) continue;
             var amp = Math.Sqrt(x[0] * x[0] + x[1] * x[1]);
             if (!(amp > 0)) continue;
             centres.Add(tc);

@@ -43,14 +43,15 @@ internal static class ResidualColour
     /// <summary>Two-sided probability of the whiteness test; outside its central interval the local level is used.</summary>
     public const double TestProbability = 0.95;
 
-    /// <param name="x">Sample abscissae (any affine scaling of time).</param>
+    /// <param name="x">Sample abscissae (any affine scaling of time), increasing.</param>
     /// <param name="residual">Residuals at <paramref name="x"/>.</param>
-    /// <param name="jacobian">Jacobian of the fitted model at the solution (n × p), same abscissae.</param>
+    /// <param name="jacobian">Jacobian of the fitted model at the solution, row-major n × <paramref name="parameters"/>, same abscissae.</param>
+    /// <param name="parameters">Number of fitted parameters p (columns of the Jacobian).</param>
     /// <param name="cyclesPerUnit">Mode frequency in cycles per unit of <paramref name="x"/>.</param>
-    public static LocalNoiseLevel Estimate(Vector<double> x, Vector<double> residual, Matrix<double> jacobian, double cyclesPerUnit)
+    public static LocalNoiseLevel Estimate(ReadOnlySpan<double> x, ReadOnlySpan<double> residual, ReadOnlySpan<double> jacobian, int parameters, double cyclesPerUnit)
     {
-        var n = x.Count;
-        var p = jacobian.ColumnCount;
+        var n = x.Length;
+        var p = parameters;
         var white = new LocalNoiseLevel(1, 1, n - p);
         var bins = 2 * BandHalfWidthBins + 1;
         if (n < 4 * bins || !(cyclesPerUnit > 0)) return white;
@@ -67,31 +68,82 @@ internal static class ResidualColour
         }
 
         // Bins f + k/T, kept inside (0, Nyquist); a band cut by either limit is extended on the other side.
-        var frequencies = new List<double>(bins);
-        for (var k = -BandHalfWidthBins; k <= BandHalfWidthBins; k++) frequencies.Add(cyclesPerUnit + k * spacing);
-        var lowCut = frequencies.Count(v => v < 0.5 * spacing);
-        var highCut = frequencies.Count(v => v > nyquist - 0.5 * spacing);
-        frequencies.RemoveAll(v => v < 0.5 * spacing || v > nyquist - 0.5 * spacing);
-        for (var k = 1; k <= lowCut; k++) frequencies.Add(cyclesPerUnit + (BandHalfWidthBins + k) * spacing);
-        for (var k = 1; k <= highCut; k++) frequencies.Add(cyclesPerUnit - (BandHalfWidthBins + k) * spacing);
-        frequencies.RemoveAll(v => v < 0.5 * spacing || v > nyquist - 0.5 * spacing);
-        if (frequencies.Count < bins - 1) return white;
+        var offsets = new List<int>(bins);
+        for (var k = -BandHalfWidthBins; k <= BandHalfWidthBins; k++) offsets.Add(k);
+        bool Outside(int k) => cyclesPerUnit + k * spacing < 0.5 * spacing || cyclesPerUnit + k * spacing > nyquist - 0.5 * spacing;
+        var lowCut = offsets.Count(k => cyclesPerUnit + k * spacing < 0.5 * spacing);
+        var highCut = offsets.Count(k => cyclesPerUnit + k * spacing > nyquist - 0.5 * spacing);
+        offsets.RemoveAll(Outside);
+        for (var k = 1; k <= lowCut; k++) offsets.Add(BandHalfWidthBins + k);
+        for (var k = 1; k <= highCut; k++) offsets.Add(-(BandHalfWidthBins + k));
+        offsets.RemoveAll(Outside);
+        if (offsets.Count < bins - 1) return white;
 
-        var basis = Matrix<double>.Build.Dense(n, 2 * frequencies.Count, (i, c) =>
+        // With B the band's cosines and sines (n × m) and J the Jacobian, the projections need only the small
+        // products BᵀB, Bᵀr, BᵀJ and JᵀJ, accumulated row by row (B is never stored):
+        //   ‖Q r‖² = (Bᵀr)ᵀ(BᵀB)⁻¹(Bᵀr),   tr QP = ‖L_B⁻¹ (BᵀJ) L_J⁻ᵀ‖²_F   (BᵀB = L_B L_Bᵀ, JᵀJ = L_J L_Jᵀ, Cholesky).
+        // The band's columns are nearly orthogonal (Fourier-spaced), so BᵀB is well conditioned; the fit's Jacobian
+        // is in scaled time, where JᵀJ is too.
+        var m = 2 * offsets.Count;
+        var kMin = offsets.Min();
+        var kMax = offsets.Max();
+        var btb = new double[m * m];
+        var btr = new double[m];
+        var btj = new double[m * p];
+        var jtj = new double[p * p];
+        var b = new double[m];
+        var powers = new System.Numerics.Complex[kMax - kMin + 1];
+        double rss = 0;
+        for (var i = 0; i < n; i++)
         {
-            var arg = 2.0 * Math.PI * frequencies[c / 2] * (x[i] - x[0]);
-            return c % 2 == 0 ? Math.Cos(arg) : Math.Sin(arg);
-        });
-        var bandQr = basis.QR(MathNet.Numerics.LinearAlgebra.Factorization.QRMethod.Thin);
-        if (!bandQr.IsFullRank) return white;
-        var jacQr = jacobian.QR(MathNet.Numerics.LinearAlgebra.Factorization.QRMethod.Thin);
-        if (!jacQr.IsFullRank) return white;
-        var u = bandQr.Q;
-        var projected = u.TransposeThisAndMultiply(residual);
-        var bandEnergy = projected.DotProduct(projected);
-        var shared = u.TransposeThisAndMultiply(jacQr.Q).FrobeniusNorm();
-        var dof = basis.ColumnCount - shared * shared;
-        var rss = residual.DotProduct(residual);
+            // e^{j2π(f + k/T)(x − x0)} for all k by a rotation recurrence from k = kMin (error grows by ~1 ulp per step).
+            var dx = x[i] - x[0];
+            var step = System.Numerics.Complex.FromPolarCoordinates(1, 2.0 * Math.PI * spacing * dx);
+            var value = System.Numerics.Complex.FromPolarCoordinates(1, 2.0 * Math.PI * (cyclesPerUnit + kMin * spacing) * dx);
+            for (var k = 0; k < powers.Length; k++)
+            {
+                powers[k] = value;
+                value *= step;
+            }
+            for (var c = 0; c < offsets.Count; c++)
+            {
+                var z = powers[offsets[c] - kMin];
+                b[2 * c] = z.Real;
+                b[2 * c + 1] = z.Imaginary;
+            }
+            var r = residual[i];
+            rss += r * r;
+            var row = jacobian.Slice(i * p, p);
+            for (var c = 0; c < m; c++)
+            {
+                var bc = b[c];
+                btr[c] += bc * r;
+                for (var d = c; d < m; d++) btb[c * m + d] += bc * b[d];
+                for (var k = 0; k < p; k++) btj[c * p + k] += bc * row[k];
+            }
+            for (var j = 0; j < p; j++)
+                for (var k = j; k < p; k++) jtj[j * p + k] += row[j] * row[k];
+        }
+        if (!CholeskyInPlace(btb, m) || !CholeskyInPlace(jtj, p)) return white;
+        // ‖L_B⁻¹ Bᵀr‖²
+        ForwardSubstitute(btb, m, btr, 1);
+        double bandEnergy = 0;
+        foreach (var v in btr) bandEnergy += v * v;
+        // W = L_B⁻¹ (BᵀJ) (m × p), then W L_J⁻ᵀ: solve row by row with L_J.
+        ForwardSubstitute(btb, m, btj, p);
+        double shared = 0;
+        var w = new double[p];
+        for (var c = 0; c < m; c++)
+        {
+            for (var k = 0; k < p; k++)
+            {
+                var s = btj[c * p + k];
+                for (var j = 0; j < k; j++) s -= jtj[k * p + j] * w[j];
+                w[k] = s / jtj[k * p + k];
+                shared += w[k] * w[k];
+            }
+        }
+        var dof = m - shared;
         if (!(dof > 2) || !(rss > 0) || n <= p) return white;
         var ratio = bandEnergy / dof / (rss / (n - p));
         if (!double.IsFinite(ratio)) return white;
@@ -102,5 +154,39 @@ internal static class ResidualColour
         var upper = ChiSquared.InvCDF(dof, 1 - tail) / dof;
         var applied = ratio < lower || ratio > upper ? ratio : 1.0;
         return new LocalNoiseLevel(applied, ratio, dof);
+    }
+
+    /// <summary>Cholesky factor L (lower triangle, row-major, in place) of a symmetric matrix given by its upper triangle; false unless positive definite.</summary>
+    private static bool CholeskyInPlace(double[] a, int n)
+    {
+        for (var j = 0; j < n; j++)
+            for (var i = j + 1; i < n; i++) a[i * n + j] = a[j * n + i];
+        for (var j = 0; j < n; j++)
+        {
+            var d = a[j * n + j];
+            for (var k = 0; k < j; k++) d -= a[j * n + k] * a[j * n + k];
+            if (!(d > 0)) return false;
+            d = Math.Sqrt(d);
+            a[j * n + j] = d;
+            for (var i = j + 1; i < n; i++)
+            {
+                var s = a[i * n + j];
+                for (var k = 0; k < j; k++) s -= a[i * n + k] * a[j * n + k];
+                a[i * n + j] = s / d;
+            }
+        }
+        return true;
+    }
+
+    /// <summary>Solves L·X = B in place for the n × columns matrix B (row-major), L from <see cref="CholeskyInPlace"/>.</summary>
+    private static void ForwardSubstitute(double[] l, int n, double[] b, int columns)
+    {
+        for (var i = 0; i < n; i++)
+            for (var c = 0; c < columns; c++)
+            {
+                var s = b[i * columns + c];
+                for (var k = 0; k < i; k++) s -= l[i * n + k] * b[k * columns + c];
+                b[i * columns + c] = s / l[i * n + i];
+            }
     }
 }

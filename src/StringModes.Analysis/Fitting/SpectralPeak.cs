@@ -51,16 +51,10 @@ internal static class SpectralPeak
             scale = Math.Max(scale, Math.Abs(v));
         }
         if (!(spread > 1e-9 * scale)) return new PeakEstimate(0, 0);
-        var buffer = new Complex[size];
-        for (var i = 0; i < n; i++)
-        {
-            var w = 0.5 - 0.5 * Math.Cos(2.0 * Math.PI * (i + 0.5) / n);
-            buffer[i] = new Complex((samples[i] - mean) * w, 0);
-        }
-        FftSharp.FFT.Forward(buffer);
+        var windowed = new double[n];
+        for (var i = 0; i < n; i++) windowed[i] = (samples[i] - mean) * (0.5 - 0.5 * Math.Cos(2.0 * Math.PI * (i + 0.5) / n));
         var half = size / 2;
-        var power = new double[half + 1];
-        for (var k = 0; k <= half; k++) power[k] = buffer[k].Real * buffer[k].Real + buffer[k].Imaginary * buffer[k].Imaginary;
+        var power = RealPower(windowed, size);
 
         var binHz = sampleRateHz / size;
         var first = Math.Max(1, (int)Math.Ceiling(minimumHz / binHz));
@@ -86,5 +80,30 @@ internal static class SpectralPeak
             if (denominator < 0) offset = Math.Clamp(0.5 * (lm - lp) / denominator, -0.5, 0.5);
         }
         return new PeakEstimate((best + offset) * binHz, ratio);
+    }
+
+    /// <summary>
+    /// |X[k]|², k = 0 … size/2, of the <paramref name="size"/>-point DFT of the real samples zero-padded to that size,
+    /// by one complex FFT of half the size: with z[m] = x[2m] + j·x[2m+1] and Z its size/2-point DFT,
+    /// X[k] = ½(Z[k] + Z*[M−k]) − ½j·e^(−j2πk/size)·(Z[k] − Z*[M−k]), M = size/2 (the standard real-input FFT;
+    /// Press et al., Numerical Recipes, 3rd ed., §12.3.2).
+    /// </summary>
+    internal static double[] RealPower(ReadOnlySpan<double> samples, int size)
+    {
+        var m = size / 2;
+        var z = new Complex[m];
+        for (var i = 0; i < samples.Length; i++)
+            z[i >> 1] = (i & 1) == 0 ? new Complex(samples[i], z[i >> 1].Imaginary) : new Complex(z[i >> 1].Real, samples[i]);
+        FftSharp.FFT.Forward(z);
+        var power = new double[m + 1];
+        for (var k = 0; k <= m; k++)
+        {
+            var a = z[k % m];
+            var b = Complex.Conjugate(z[(m - k) % m]);
+            var (sin, cos) = Math.SinCos(-2.0 * Math.PI * k / size);
+            var x = 0.5 * (a + b) - 0.5 * Complex.ImaginaryOne * new Complex(cos, sin) * (a - b);
+            power[k] = x.Real * x.Real + x.Imaginary * x.Imaginary;
+        }
+        return power;
     }
 }
