@@ -21,28 +21,31 @@ internal static class MatrixPencil
         var n = channels[0].Length;
         var rows = n - pencil;
         var size = pencil + 1;
-        var gram = Matrix<double>.Build.Dense(size, size);
+        // Row-major flat arrays: (L + 1)² doubles exceed the large-object threshold at L ≈ 100, and a rectangular
+        // array per channel and bootstrap draw would churn that heap.
+        var total = new double[size * size];
+        var g = new double[size * size];
         foreach (var y in channels)
         {
             // G[j,k] = Σ_{i<rows} y[i+j]·y[i+k]; G[j+1,k+1] = G[j,k] − y[j]·y[k] + y[j+rows]·y[k+rows].
-            var g = new double[size, size];
             for (var k = 0; k < size; k++)
             {
                 double sum = 0;
                 for (var i = 0; i < rows; i++) sum += y[i] * y[i + k];
-                g[0, k] = sum;
-                g[k, 0] = sum;
+                g[k] = sum;
+                g[k * size] = sum;
             }
             for (var j = 0; j < pencil; j++)
                 for (var k = j; k < pencil; k++)
                 {
-                    var next = g[j, k] - y[j] * y[k] + y[j + rows] * y[k + rows];
-                    g[j + 1, k + 1] = next;
-                    g[k + 1, j + 1] = next;
+                    var next = g[j * size + k] - y[j] * y[k] + y[j + rows] * y[k + rows];
+                    g[(j + 1) * size + k + 1] = next;
+                    g[(k + 1) * size + j + 1] = next;
                 }
-            for (var j = 0; j < size; j++)
-                for (var k = 0; k < size; k++) gram[j, k] += g[j, k];
+            for (var i = 0; i < total.Length; i++) total[i] += g[i];
         }
+        // Symmetric: row-major and column-major storage agree.
+        var gram = Matrix<double>.Build.Dense(size, size, total);
         var evd = gram.Evd(Symmetricity.Symmetric);
         var largest = Enumerable.Range(0, size).OrderByDescending(i => evd.EigenValues[i].Real).Take(order).ToArray();
         var v = Matrix<double>.Build.Dense(size, order, (r, c) => evd.EigenVectors[r, largest[c]]);
