@@ -6,7 +6,10 @@ namespace StringModes.Analysis.Fitting;
 /// An independent estimate of one mode's frequency and decay rate by the multi-channel matrix pencil, and its
 /// agreement with the nonlinear fit. Differences are in units of the combined standard uncertainty
 /// √(u_fit² + u_pencil²); since both estimates see the same noise this overstates the spread of their difference,
-/// so the check is conservative (it rarely flags agreement as disagreement).
+/// so the check is conservative (it rarely flags agreement as disagreement). The pencil uses every frame, so it is
+/// compared with the fit to every frame, also where the reported values come from the key frames of a compressed
+/// video alone. Its bootstrap adds white noise; its spread is scaled by the fit's local noise level at the mode
+/// frequency, on which both estimators' variances depend.
 /// </summary>
 /// <param name="N">Mode number.</param>
 /// <param name="FrequencyHz">Matrix-pencil frequency with a parametric-bootstrap standard uncertainty.</param>

@@ -30,13 +30,17 @@ public static class ModeFitter
         var fits = fitted.Select(f => f.Fit).ToList();
         var internals = fitted.Select(f => f.Raw).ToList();
         RefitNearHarmonics(modal, options, fits, internals);
+        // The cross-check runs the matrix pencil on every frame, so it is compared with the fits to every frame, even
+        // where the reported values come from the key frames alone: two estimators on the same data.
+        var allFrameFits = fits.ToList();
+        var allFrameInternals = internals.ToList();
         if (options.DetectKeyFrames) ApplyKeyFrames(modal, options, fits, internals, warnings);
         foreach (var fit in fits) warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
 
         var checks = new List<CrossCheck>();
         if (options.CrossCheck && fits.Any(f => f.IsUsable))
         {
-            var note = RunCrossCheck(modal, fits, internals, options, checks);
+            var note = RunCrossCheck(modal, allFrameFits, allFrameInternals, options, checks);
             if (note is not null) warnings.Add(note);
             foreach (var c in checks.Where(c => !c.Agrees))
                 warnings.Add($"mode {c.N}: the independent matrix-pencil estimate differs from the fit by {c.FrequencyDifference:F1} (frequency) and {c.DecayRateDifference:F1} (decay rate) combined standard uncertainties; the single-sinusoid model may not describe this mode");
@@ -476,8 +480,11 @@ public static class ModeFitter
         for (var m = 0; m < used.Length; m++)
         {
             var fit = fits[used[m]];
-            var uf = StandardDeviation(draws.Select(d => d[m].F));
-            var us = StandardDeviation(draws.Select(d => d[m].S));
+            // The draws add white noise; the mode's estimates depend on the noise near its own frequency, which the
+            // fit measured (its local noise level, ResidualColour), so the spread is scaled by that level as well.
+            var local = Math.Sqrt(raw[used[m]]!.ColourFactor);
+            var uf = local * StandardDeviation(draws.Select(d => d[m].F));
+            var us = local * StandardDeviation(draws.Select(d => d[m].S));
             var zf = Math.Abs(fit.FrequencyHz.Value - estimate[m].F) / Math.Sqrt(fit.FrequencyHz.StandardUncertainty * fit.FrequencyHz.StandardUncertainty + uf * uf);
             var zs = Math.Abs(fit.DecayRatePerS.Value - estimate[m].S) / Math.Sqrt(fit.DecayRatePerS.StandardUncertainty * fit.DecayRatePerS.StandardUncertainty + us * us);
             zf = double.IsFinite(zf) ? zf : 0;

@@ -51,6 +51,22 @@ public class KeyFrameTests
         Assert.True(Math.Abs(fit.DecayRatePerS.Value / Sigma - 1) <= 0.02, $"decay {fit.DecayRatePerS}");
     }
 
+    // The matrix pencil runs on every frame, so on a codec clip it must be compared with the all-frame fit (two
+    // estimators, same data): it then agrees, while the key-frame values it is not computed from would differ by the
+    // codec's bias. The check's own criterion (ConsistencyCoverageFactor, 3 combined standard uncertainties) decides.
+    [Fact]
+    public void CrossCheckOnACodecClip_ComparesEstimatorsOnTheSameFrames()
+    {
+        var modal = Codec(31, withCodecError: true);
+        var allFrames = ModeFitter.Fit(modal, new ModeFitOptions { DetectKeyFrames = false }).Modes[0];
+        var result = ModeFitter.Fit(modal, new ModeFitOptions());
+        Assert.Contains(result.Warnings, w => w.Contains("key frames only"));
+        var check = Assert.Single(result.CrossChecks);
+        var combined = Math.Sqrt(Math.Pow(allFrames.DecayRatePerS.StandardUncertainty, 2) + Math.Pow(check.DecayRatePerS.StandardUncertainty, 2));
+        Assert.Equal(Math.Abs(allFrames.DecayRatePerS.Value - check.DecayRatePerS.Value) / combined, check.DecayRateDifference, 1e-9);
+        Assert.True(check.Agrees, $"pencil σ {check.DecayRatePerS}, all-frame fit σ {allFrames.DecayRatePerS}, difference {check.DecayRateDifference:F1} u");
+    }
+
     // Tracking error that grows with the mark's speed (blur), for a 40 Hz mode filmed at 400 frames/s: the error
     // variance repeats every 5 frames (half a period), in step with the frame index for the whole record. That is
     // not a codec's key-frame pattern and must not be taken for one (the detector skips phase-locked periods;
