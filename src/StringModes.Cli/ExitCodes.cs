@@ -15,7 +15,7 @@ public static class ExitCodes
     public const int AnalysisImpossible = 4;
     /// <summary>Output not writable.</summary>
     public const int OutputNotWritable = 5;
-    /// <summary>Interrupted by SIGINT/SIGTERM.</summary>
+    /// <summary>Interrupted by SIGINT, SIGTERM or SIGHUP.</summary>
     public const int Interrupted = 130;
 }
 

@@ -56,7 +56,7 @@ internal sealed class PartialOutputs
 }
 
 /// <summary>
-/// Turns SIGINT (Ctrl-C) and SIGTERM into cancellation of the running command, which stops at its next check, removes
+/// Turns SIGINT (Ctrl-C), SIGTERM and SIGHUP into cancellation of the running command, which stops at its next check, removes
 /// its staging folder and returns exit code 130. A command that has not returned within <see cref="Grace"/> of the
 /// first signal (blocked in a read, or inside a step that does not check), or a second signal, makes the process
 /// delete what <see cref="PartialOutputs"/> holds and exit with 130 itself: an interrupt is always prompt and never
@@ -82,7 +82,7 @@ internal sealed class Interruption : IDisposable
     /// <param name="error">Where the forced exit writes its one line.</param>
     /// <param name="exit">Ends the process (Environment.Exit; replaceable for tests).</param>
     /// <param name="grace">Default <see cref="Grace"/>.</param>
-    /// <param name="listen">Register for SIGINT and SIGTERM (false in tests, which call <see cref="Signal"/>).</param>
+    /// <param name="listen">Register for SIGINT, SIGTERM and SIGHUP (false in tests, which call <see cref="Signal"/>).</param>
     public Interruption(CancellationTokenSource cancel, PartialOutputs partial, TextWriter error, Action<int> exit, TimeSpan? grace = null, bool listen = true)
     {
         _cancel = cancel;
@@ -91,7 +91,8 @@ internal sealed class Interruption : IDisposable
         _exit = exit;
         _grace = grace ?? Grace;
         if (!listen) return;
-        foreach (var s in new[] { PosixSignal.SIGINT, PosixSignal.SIGTERM })
+        // SIGHUP: the terminal or remote session that started the run went away.
+        foreach (var s in new[] { PosixSignal.SIGINT, PosixSignal.SIGTERM, PosixSignal.SIGHUP })
             _registrations.Add(PosixSignalRegistration.Create(s, c =>
             {
                 c.Cancel = true;

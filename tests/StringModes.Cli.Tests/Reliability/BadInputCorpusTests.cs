@@ -264,7 +264,7 @@ internal static class ReliabilityDoc
             with the warning shown, and their outputs hold no NaN or Infinity. Permission cases run without root's
             permission override (`setpriv`) when the tests run as root.
 
-            Beside this table: `InterruptTests` (SIGINT or SIGTERM during an analysis: exit 130 within 2 s, nothing left,
+            Beside this table: `InterruptTests` (SIGINT, SIGTERM or SIGHUP during an analysis: exit 130 within 2 s, nothing left,
             the rerun succeeds), `ParserFuzzTests` (seeded mutations of rig, scene and quantity texts: valid values or a
             one-line refusal, no other exception), `DeterminismTests` (two processes, byte-identical results) and the
             CsCheck property tests of tests/StringModes.Analysis.Tests.

@@ -93,7 +93,7 @@ internal static class CliProcess
         return new ProcessResult(exited ? p.ExitCode : -1, stdout.Result, stderr.Result, !exited, clock.Elapsed);
     }
 
-    /// <summary>Sends a POSIX signal (SIGINT = 2, SIGTERM = 15) to a process.</summary>
+    /// <summary>Sends a POSIX signal (SIGHUP = 1, SIGINT = 2, SIGTERM = 15) to a process.</summary>
     public static void Signal(Process p, int signal)
     {
         if (Kill(p.Id, signal) != 0) throw new InvalidOperationException($"kill({p.Id}, {signal}) failed: errno {Marshal.GetLastPInvokeError()}");

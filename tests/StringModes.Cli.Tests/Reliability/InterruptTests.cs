@@ -37,12 +37,12 @@ public sealed class LongClipFixture : IDisposable
 }
 
 /// <summary>
-/// SIGINT and SIGTERM during a long analysis, sent to the real process: it exits promptly with 130, says so in one
+/// SIGINT, SIGTERM and SIGHUP during a long analysis, sent to the real process: it exits promptly with 130, says so in one
 /// line, leaves no output, no staging folder and an existing output untouched; the same command then succeeds.
 /// </summary>
 public class InterruptTests(LongClipFixture clip) : IClassFixture<LongClipFixture>
 {
-    private const int SigInt = 2, SigTerm = 15;
+    private const int SigHup = 1, SigInt = 2, SigTerm = 15;
 
     // The command stops at its next frame; a stage that does not check is cut short by the 1.5 s watchdog
     // (Interruption.Grace). 2 s leaves 0.5 s for the runtime to shut down on a loaded machine.
@@ -110,6 +110,16 @@ public class InterruptTests(LongClipFixture clip) : IClassFixture<LongClipFixtur
         Assert.Equal(["earlier.txt"], Directory.GetFileSystemEntries(existing).Select(Path.GetFileName));
         Assert.Equal("results of an earlier run", File.ReadAllText(Path.Combine(existing, "earlier.txt")));
         Directory.Delete(existing, true);
+    }
+
+    // SIGHUP (the terminal that started the run closed) is an interruption like the others, not an abrupt death
+    // that would leave the staging folder behind.
+    [Fact]
+    public void SigHupDuringTracking_ExitsPromptlyWith130AndLeavesNothing()
+    {
+        var (r, signalToExit) = Interrupt("results-hup", [SigHup]);
+        AssertInterruptedCleanly(r, signalToExit);
+        Assert.False(Directory.Exists(Path.Combine(clip.Root, "results-hup")));
     }
 
     // A second signal does not wait for the command: the process removes its staging folder and exits at once.
