@@ -11,7 +11,7 @@ internal static class HelpText
           3  unreadable or unsupported input (clip, rig or scene file)
           4  analysis not possible (marks not found, no vibration, ...)
           5  output not writable (or exists; add --force)
-          130 interrupted (Ctrl-C, SIGTERM, or SIGHUP when the terminal closes); no partial outputs are kept
+          130 interrupted (Ctrl-C, SIGTERM, SIGHUP); no partial outputs are kept
 
         """;
 
