@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # Performance benchmark: synthesises a 1920x1080, 240 fps clip with 11 marks (MPEG-4) of 3 s and 10 s, then measures
 # decode-only time through the same decoder, `stringmodes analyze` wall time and peak memory (RSS).
-# Prints analyze/decode and the peak RSS of both clips. Usage: bash bench/performance.sh [runs]
+# Prints analyze/decode, the peak RSS and the numeric stages' share of the analyze time for both clips. Usage: bash bench/performance.sh [runs]
 set -euo pipefail
 cd "$(dirname "$0")/.."
 runs=${1:-3}
@@ -29,14 +29,17 @@ done
 median() { sort -g | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}'; }
 for seconds in 3 10; do
   clip="$work/clip-$seconds.mp4"
-  decode=(); analyze=(); rss=()
+  decode=(); analyze=(); rss=(); share=()
   "$bench" decode "$clip" >/dev/null   # warm-up: file cache and native libraries
   for r in $(seq "$runs"); do
     decode+=("$("$bench" decode "$clip" | awk '{print $4}')")
-    /usr/bin/time -f "%e %M" -o "$work/time" "$cli" analyze "$clip" --length 1.2 --linear-density 1g/m --out "$work/out" --force >/dev/null 2>&1
+    # --debug prints each stage's wall time on stderr; the numeric stages' share of the whole run is kept.
+    /usr/bin/time -f "%e %M" -o "$work/time" "$cli" analyze "$clip" --length 1.2 --linear-density 1g/m --out "$work/out" --force --debug >/dev/null 2>"$work/stderr"
     read -r wall kb < "$work/time"
-    analyze+=("$wall"); rss+=("$kb")
+    numeric=$(grep -oE "timing: numeric stages [^0-9]*[0-9.]+ s" "$work/stderr" | grep -oE "[0-9.]+ s$" | awk '{print $1}')
+    analyze+=("$wall"); rss+=("$kb"); share+=("$(awk -v n="$numeric" -v w="$wall" 'BEGIN {printf "%.4f", n / w}')")
   done
   d=$(printf '%s\n' "${decode[@]}" | median); a=$(printf '%s\n' "${analyze[@]}" | median); m=$(printf '%s\n' "${rss[@]}" | median)
-  echo "clip ${seconds} s: decode-only ${d} s, analyze ${a} s, analyze/decode $(awk -v a="$a" -v d="$d" 'BEGIN {printf "%.2f", a / d}'), peak RSS $((m / 1024)) MB (median of $runs)"
+  n=$(printf '%s\n' "${share[@]}" | median)
+  echo "clip ${seconds} s: decode-only ${d} s, analyze ${a} s, analyze/decode $(awk -v a="$a" -v d="$d" 'BEGIN {printf "%.2f", a / d}'), peak RSS $((m / 1024)) MB, numeric stages $(awk -v n="$n" 'BEGIN {printf "%.1f", 100 * n}') % of analyze (median of $runs)"
 done
