@@ -21,15 +21,27 @@ public static class ModeFitter
         options ??= new ModeFitOptions();
         var warnings = new List<string>();
         // Modes are fitted independently, so in parallel; each result lands in its own slot (order is kept).
-        var fitted = new (ModeFit Fit, SinusoidFit? Raw)[modal.ModeCount];
+        // Mode 1 goes first: its frequency tells the others where their own peak must lie (near n·f1), so a
+        // coordinate whose strongest peak is elsewhere (another mode leaking in) is not fitted there in vain.
+        var fitted = new (ModeFit Fit, SinusoidFit? Raw, double ElsewhereHz)[modal.ModeCount];
+        var first = Array.IndexOf(modal.ModeNumbers, 1);
+        double? f1 = null;
+        if (first >= 0)
+        {
+            var (times, values) = modal.ValidSeries(first);
+            fitted[first] = FitSeriesCore(1, times, values, options);
+            if (fitted[first].Fit.IsUsable) f1 = fitted[first].Fit.FrequencyHz.Value;
+        }
         Parallel.For(0, modal.ModeCount, j =>
         {
+            if (j == first) return;
             var (times, values) = modal.ValidSeries(j);
-            fitted[j] = FitSeriesCore(modal.ModeNumbers[j], times, values, options);
+            var n = modal.ModeNumbers[j];
+            fitted[j] = FitSeriesCore(n, times, values, options, expectedHz: f1 is { } f ? (HarmonicBandLow * n * f, HarmonicBandHigh * n * f) : null);
         });
         var fits = fitted.Select(f => f.Fit).ToList();
         var internals = fitted.Select(f => f.Raw).ToList();
-        RefitNearHarmonics(modal, options, fits, internals);
+        RefitNearHarmonics(modal, options, fits, internals, fitted.Select(f => f.ElsewhereHz).ToArray());
         // The cross-check runs the matrix pencil on every frame, so it is compared with the fits to every frame, even
         // where the reported values come from the key frames alone: two estimators on the same data.
         var allFrameFits = fits.ToList();
@@ -55,7 +67,10 @@ public static class ModeFitter
     /// outside [0.8, 1.6]·n·f1 is refitted with the spectral search confined to that band; the refit is kept when it
     /// finds a detectable peak there, with a note saying so.
     /// </summary>
-    private static void RefitNearHarmonics(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals)
+    /// <summary>Band [low, high]·n·f1 in which mode n's own peak is sought (generous: a stiff string's overtones run sharp).</summary>
+    private const double HarmonicBandLow = 0.8, HarmonicBandHigh = 1.6;
+
+    private static void RefitNearHarmonics(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals, double[] elsewhereHz)
     {
         var first = fits.FirstOrDefault(f => f.N == 1 && f.IsUsable);
         if (first is null) return;
@@ -66,23 +81,27 @@ public static class ModeFitter
             var n = fits[j].N;
             if (n == 1) return;
             var expected = n * f1;
-            if (fits[j].IsUsable && fits[j].FrequencyHz.Value >= 0.8 * expected && fits[j].FrequencyHz.Value <= 1.6 * expected) return;
+            var (low, high) = (HarmonicBandLow * expected, HarmonicBandHigh * expected);
+            if (fits[j].IsUsable && fits[j].FrequencyHz.Value >= low && fits[j].FrequencyHz.Value <= high) return;
+            // The strongest peak lies outside the band: either the first fit landed there, or the spectrum showed it
+            // there and the fit was not run.
+            double? strongestHz = fits[j].IsUsable ? fits[j].FrequencyHz.Value : double.IsNaN(elsewhereHz[j]) ? null : elsewhereHz[j];
             var (times, values) = modal.ValidSeries(j);
-            var (refit, raw) = FitSeriesCore(n, times, values, options, (0.8 * expected, 1.6 * expected));
-            if (!refit.IsUsable || refit.FrequencyHz.Value < 0.8 * expected || refit.FrequencyHz.Value > 1.6 * expected)
+            var (refit, raw, _) = FitSeriesCore(n, times, values, options, (low, high));
+            if (!refit.IsUsable || refit.FrequencyHz.Value < low || refit.FrequencyHz.Value > high)
             {
-                if (fits[j].IsUsable)
+                if (strongestHz is { } elsewhere)
                 {
                     // The only peak belongs to another mode: report the mode as not seen rather than mislabel it.
                     var reason = string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                        $"no peak near n·f1 = {expected:G6} Hz; the strongest peak of this modal coordinate ({fits[j].FrequencyHz.Value:G6} Hz) belongs to another mode leaking in, so the mode is reported as not detected");
+                        $"no peak near n·f1 = {expected:G6} Hz; the strongest peak of this modal coordinate ({elsewhere:G6} Hz) belongs to another mode leaking in, so the mode is reported as not detected");
                     fits[j] = ModeFit.Unfitted(n, FitStatus.NoSignal, [reason]);
                     internals[j] = null;
                 }
                 return;
             }
-            var note = fits[j].IsUsable
-                ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"the strongest peak of this modal coordinate ({fits[j].FrequencyHz.Value:G6} Hz) is far from n·f1 = {expected:G6} Hz, most likely another mode leaking in; the mode was fitted at its own peak near n·f1 instead")
+            var note = strongestHz is { } strongest
+                ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"the strongest peak of this modal coordinate ({strongest:G6} Hz) is far from n·f1 = {expected:G6} Hz, most likely another mode leaking in; the mode was fitted at its own peak near n·f1 instead")
                 : string.Create(System.Globalization.CultureInfo.InvariantCulture, $"found by searching near n·f1 = {expected:G6} Hz");
             fits[j] = refit with { Warnings = [note, .. refit.Warnings] };
             internals[j] = raw;
@@ -93,18 +112,27 @@ public static class ModeFitter
     public static ModeFit FitSeries(int n, double[] timesS, double[] valuesM, ModeFitOptions? options = null)
         => FitSeriesCore(n, timesS, valuesM, options ?? new ModeFitOptions()).Fit;
 
-    private static (ModeFit Fit, SinusoidFit? Raw) FitSeriesCore(int n, double[] times, double[] values, ModeFitOptions options, (double Low, double High)? bandHz = null)
+    /// <param name="n">Mode number.</param>
+    /// <param name="times">Sample times, increasing.</param>
+    /// <param name="values">Modal coordinate at those times.</param>
+    /// <param name="options">Fit options.</param>
+    /// <param name="bandHz">Search the spectral peak only within this band.</param>
+    /// <param name="expectedHz">Where the mode's peak is expected: when the strongest peak lies outside, no fit is run; the
+    /// result is then <see cref="FitStatus.NoSignal"/> with that peak's frequency as ElsewhereHz (NaN otherwise), for the
+    /// caller to search the band.</param>
+    private static (ModeFit Fit, SinusoidFit? Raw, double ElsewhereHz) FitSeriesCore(int n, double[] times, double[] values, ModeFitOptions options,
+        (double Low, double High)? bandHz = null, (double Low, double High)? expectedHz = null)
     {
         var warnings = new List<string>();
         if (times.Length < 10)
         {
             warnings.Add($"only {times.Length} valid samples; at least 10 are needed to fit frequency and decay");
-            return (ModeFit.Unfitted(n, FitStatus.TooShort, warnings), null);
+            return (ModeFit.Unfitted(n, FitStatus.TooShort, warnings), null, double.NaN);
         }
         if (values.Any(v => !double.IsFinite(v)) || times.Any(t => !double.IsFinite(t)))
         {
             warnings.Add("the series contains non-finite values");
-            return (ModeFit.Unfitted(n, FitStatus.Singular, warnings), null);
+            return (ModeFit.Unfitted(n, FitStatus.Singular, warnings), null, double.NaN);
         }
         var duration = times[^1] - times[0];
         var (uniform, rate) = ResampleUniform(times, values);
@@ -114,17 +142,19 @@ public static class ModeFitter
         if (peak.PeakToMedianPower < options.DetectionThreshold)
         {
             warnings.Add($"no vibration detected: the strongest spectral peak is only {peak.PeakToMedianPower:F1} times the median noise power (threshold {options.DetectionThreshold:G3})");
-            return (ModeFit.Unfitted(n, FitStatus.NoSignal, warnings), null);
+            return (ModeFit.Unfitted(n, FitStatus.NoSignal, warnings), null, double.NaN);
         }
         var periods = peak.FrequencyHz * duration;
         if (periods < 1.5)
         {
             warnings.Add($"the analysis window ({duration:G3} s) holds only {periods:F1} periods at {peak.FrequencyHz:G4} Hz; frequency and decay cannot be separated");
-            return (ModeFit.Unfitted(n, FitStatus.TooShort, warnings), null);
+            return (ModeFit.Unfitted(n, FitStatus.TooShort, warnings), null, double.NaN);
         }
         if (periods < options.MinimumPeriods)
             warnings.Add($"the analysis window holds only {periods:F1} periods; frequency and decay are poorly determined");
 
+        if (expectedHz is { } expected && (peak.FrequencyHz < expected.Low || peak.FrequencyHz > expected.High))
+            return (ModeFit.Unfitted(n, FitStatus.NoSignal, [.. warnings, "the strongest spectral peak lies far from n·f1"]), null, peak.FrequencyHz);
         var decaySeed = EnvelopeDecaySeed(times, values, peak.FrequencyHz, periods);
         var fit = DampedSinusoidFit.Fit(times, values, peak.FrequencyHz, decaySeed, options.MaximumIterations, options.CorrectForColouredResiduals);
         if (!fit.Usable)
@@ -132,11 +162,11 @@ public static class ModeFitter
             warnings.Add(fit.Status == FitStatus.Singular
                 ? "the decay fit failed (singular normal matrix or invalid values); no values are reported"
                 : "the decay fit failed; no values are reported");
-            return (ModeFit.Unfitted(n, fit.Status, warnings), null);
+            return (ModeFit.Unfitted(n, fit.Status, warnings), null, double.NaN);
         }
         if (Math.Abs(fit.FrequencyHz - peak.FrequencyHz) * duration > 1.0)
             warnings.Add("the fitted frequency moved more than one spectral bin from the spectral peak; check for a second strong component");
-        return (Finish(n, times, values, fit, periods, options, warnings), fit);
+        return (Finish(n, times, values, fit, periods, options, warnings), fit, double.NaN);
     }
 
     /// <summary>Warnings about a converged fit, the decay-shape checks, and the derived damping measures.</summary>
