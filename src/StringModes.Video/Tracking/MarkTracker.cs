@@ -146,11 +146,11 @@ internal sealed class MarkTracker
     /// centre, so the exposure-averaged position is kept.</item>
     /// <item>Background gradient: an edge pixel mixes mark and background, P = α·M + (1 − α)·b (the compositing
     /// equation, Porter &amp; Duff 1984, Computer Graphics 18(3):253 [memory]), so a background that slopes across the
-    /// mark weighs one side's edge more than the other's (about 0.01 px per DN/px for a 5 px mark). The coverage α =
-    /// (P − b)/(M − b) is used instead of P − b, with b a plane (the window's border median plus the slope fitted to
-    /// the ring r + 1.5 … r + 3 px, 3-MAD outliers such as the string left out) and M the median of the mark's core. A
-    /// plane subtracted from P itself, without the mixing, would tilt the uniform core and bias the centroid far
-    /// more.</item>
+    /// mark weighs one side's edge more than the other's (about 0.01 px per DN/px for a 5 px mark). The coverage
+    /// α = (P − b)/(M − b) is used instead of P − b, with b a plane (the window's border median plus the slope fitted
+    /// to the ring r + 1.5 … r + 3 px, values more than 3 robust standard deviations (1.4826·MAD) + 1 DN from its
+    /// median, such as the string, left out) and M the median of the mark's core. A plane subtracted from P itself,
+    /// without the mixing, would tilt the uniform core and bias the centroid far more.</item>
     /// </list>
     /// Each step is a Newton step on the fixed-point condition (the taper moves with c, so its Jacobian is
     /// Σ W·α − Σ α·|W′|/ρ·(p − c)(p − c)ᵀ), which converges in two or three steps where the plain iteration needs a
@@ -166,17 +166,19 @@ internal sealed class MarkTracker
         var left = _windowX - h;
         var top = _windowY - h;
         var outer = _taperOuter;
-        var reach = Math.Max(outer, _radius + AnnulusOuterPx) + 1.5;
-        if (startX - reach < left || startY - reach < top || startX + reach > left + side - 1 || startY + reach > top + side - 1) return null;
+        // The taper may move a pixel from the start; one more pixel of margin for rounding.
+        var reach = Math.Max(outer + 2, _radius + AnnulusOuterPx + 1);
+        if (startX - reach < left || startY - reach < top || startX + reach > left + side - 1 || startY + reach > top + side - 1)
+            return null;
 
         // The mark's core (for its level) and the ring beside it (for the background slope).
-        var i0 = (int)Math.Floor(startX - reach) - left;
-        var i1 = (int)Math.Ceiling(startX + reach) - left;
-        var j0 = (int)Math.Floor(startY - reach) - top;
-        var j1 = (int)Math.Ceiling(startY + reach) - top;
         var core = Math.Max(1.5, _taperInner);
         var ringIn = _radius + AnnulusInnerPx;
         var ringOut = _radius + AnnulusOuterPx;
+        var i0 = (int)Math.Floor(startX - ringOut) - left;
+        var i1 = (int)Math.Ceiling(startX + ringOut) - left;
+        var j0 = (int)Math.Floor(startY - ringOut) - top;
+        var j1 = (int)Math.Ceiling(startY + ringOut) - top;
         int nc = 0, nr = 0;
         for (var j = j0; j <= j1; j++)
             for (var i = i0; i <= i1; i++)
@@ -199,7 +201,7 @@ internal sealed class MarkTracker
         var background = _background;
         if (!(level - background > 0.25 * _contrast)) return null;
 
-        // Background slope: least squares over the ring without its outliers.
+        // Background slope: least squares over the ring without its outliers (the string, a neighbouring object).
         double gx = 0, gy = 0;
         if (nr >= 12)
         {
@@ -295,7 +297,7 @@ internal sealed class MarkTracker
             x += ux;
             y += uy;
             if (Math.Abs(x - startX) + Math.Abs(y - startY) > 1) return null;
-            if (Math.Abs(ux) + Math.Abs(uy) < 1e-5) break;
+            if (Math.Abs(ux) + Math.Abs(uy) < 1e-4) break;
         }
         return (x, y);
     }
