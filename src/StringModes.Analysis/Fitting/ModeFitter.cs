@@ -300,25 +300,14 @@ public static class ModeFitter
     private static double EnvelopeDecaySeed(double[] times, double[] values, double frequencyHz, double periods)
     {
         var segments = Math.Clamp((int)(periods / 3), 2, 8);
-        var t0 = times[0];
-        var span = times[^1] - t0;
         var centres = new List<double>();
         var logs = new List<double>();
         var weights = new List<double>();
         var segment = new Modal.SmallLeastSquares(times.Length, 3);
         Span<double> x = stackalloc double[3];
-        var next = 0;
-        for (var s = 0; s < segments; s++)
+        foreach (var (first, count, tc) in Segments(times, segments))
         {
-            var lo = t0 + span * s / segments;
-            var hi = t0 + span * (s + 1) / segments;
-            // Times are increasing: the segment is one run of samples.
-            while (next < times.Length && times[next] < lo) next++;
-            var first = next;
-            while (next < times.Length && (times[next] < hi || s == segments - 1)) next++;
-            var count = next - first;
             if (count < 4) continue;
-            var tc = 0.5 * (lo + hi);
             for (var r = 0; r < count; r++)
             {
                 var (sin, cos) = Math.SinCos(2 * Math.PI * frequencyHz * (times[first + r] - tc));
@@ -359,22 +348,37 @@ public static class ModeFitter
     /// Group's Review of Particle Physics, Introduction §5.2), the same treatment as the string model's χ²/ν widening.
     /// Returns that factor (1 when the parts agree or the check cannot run).
     /// </summary>
-    private static double CheckDecayShape(double[] times, double[] values, SinusoidFit whole, double periods, ModeFitOptions options, List<string> warnings)
+    /// <summary>
+    /// The record cut into <paramref name="parts"/> equal spans of time: each span's first sample, sample count and
+    /// centre time (the last span keeps the final sample). Times are increasing, so each span is one run.
+    /// </summary>
+    private static IEnumerable<(int First, int Count, double Centre)> Segments(double[] times, int parts)
     {
-        var parts = periods >= 40 && times.Length >= 80 ? 4 : periods >= 12 && times.Length >= 40 ? 2 : 0;
-        if (parts == 0) return 1.0;
         var t0 = times[0];
         var span = times[^1] - t0;
-        var sub = new List<(double Centre, SinusoidFit Fit)>();
+        var next = 0;
         for (var p = 0; p < parts; p++)
         {
             var lo = t0 + span * p / parts;
             var hi = t0 + span * (p + 1) / parts;
-            var idx = Enumerable.Range(0, times.Length).Where(i => times[i] >= lo && (times[i] < hi || p == parts - 1)).ToArray();
+            while (next < times.Length && times[next] < lo) next++;
+            var first = next;
+            while (next < times.Length && (times[next] < hi || p == parts - 1)) next++;
+            yield return (first, next - first, 0.5 * (lo + hi));
+        }
+    }
+
+    private static double CheckDecayShape(double[] times, double[] values, SinusoidFit whole, double periods, ModeFitOptions options, List<string> warnings)
+    {
+        var parts = periods >= 40 && times.Length >= 80 ? 4 : periods >= 12 && times.Length >= 40 ? 2 : 0;
+        if (parts == 0) return 1.0;
+        var sub = new List<(double Centre, SinusoidFit Fit)>();
+        foreach (var (first, count, centre) in Segments(times, parts))
+        {
             // The part's noise level near f is taken from the whole window: its narrow band (1/T bins) estimates the
             // spectral density at f better than a part's band, whose coarser bins fold slow envelope errors into
             // the part's own parameters and so understate its uncertainty.
-            var fit = DampedSinusoidFit.Fit(idx.Select(i => times[i]).ToArray(), idx.Select(i => values[i]).ToArray(),
+            var fit = DampedSinusoidFit.Fit(times[first..(first + count)], values[first..(first + count)],
                 whole.FrequencyHz, whole.DecayRatePerS, options.MaximumIterations, correctForColouredResiduals: false);
             if (whole.ColourFactor != 1.0 && fit.Usable)
             {
@@ -383,7 +387,7 @@ public static class ModeFitter
                 fit = fit with { Covariance = cov, ColourFactor = whole.ColourFactor };
             }
             if (!fit.Usable || !(fit.FrequencyUncertainty > 0) || !(fit.DecayRateUncertainty > 0)) return 1.0;
-            sub.Add((0.5 * (lo + hi), fit));
+            sub.Add((centre, fit));
         }
         // A chi-square with parts−1 degrees of freedom at the probability that the coverage factor gives a Gaussian.
         var probability = 2 * Normal.CDF(0, 1, options.ConsistencyCoverageFactor) - 1;

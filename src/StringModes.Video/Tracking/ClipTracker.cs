@@ -123,10 +123,10 @@ public static class ClipTracker
         var xs = new List<double[]>();
         var ys = new List<double[]>();
         var qs = new List<double[]>();
-        using (var source = (luma is null ? null : VideoFileSource.TryOpenLuma(path)) ?? FrameSources.Open(path, options.CaptureFps))
+        using (var source = luma is null
+                   ? FrameSources.Open(path, options.CaptureFps)
+                   : VideoFileSource.TryOpenLuma(path) ?? throw new InvalidOperationException("the clip's luma plane could be opened for the reference frame but not for tracking"))
         {
-            if (luma is not null && source is not VideoFileSource { LumaOnly: true })
-                throw new InvalidOperationException("the clip's luma plane could be opened for the reference frame but not for tracking");
             var scale = options.CaptureFps is { } capture && !double.IsNaN(source.DeclaredFps) ? source.DeclaredFps / capture : 1.0;
             var total = source.DeclaredFrameCount > 0 ? source.DeclaredFrameCount : 0;
             using var pipeline = new FramePipeline(source, cancel: cancel);

@@ -18,12 +18,10 @@ internal sealed class LumaTracking
     /// <summary>Smallest √3·|luma contrast| / |colour contrast| for which a mark counts as a brightness contrast (1 for a grey mark; 0.85 ≈ 30° off grey).</summary>
     public const double MinimumGreyness = 0.85;
 
+    /// <summary>Y / grey slope of the reference frame.</summary>
     private readonly double _slope;
 
     private LumaTracking(double slope) => _slope = slope;
-
-    /// <summary>Y / grey slope of the reference frame.</summary>
-    public double Slope => _slope;
 
     /// <summary>The plan for <paramref name="path"/>, or null when colour frames must be decoded.</summary>
     public static LumaTracking? TryPlan(string path, Mat colourReference, int referenceIndex, FoundMarks marks)
