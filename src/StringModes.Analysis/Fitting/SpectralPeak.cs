@@ -86,7 +86,7 @@ internal static class SpectralPeak
     /// |X[k]|², k = 0 … size/2, of the <paramref name="size"/>-point DFT of the real samples zero-padded to that size,
     /// by one complex FFT of half the size: with z[m] = x[2m] + j·x[2m+1] and Z its size/2-point DFT,
     /// X[k] = ½(Z[k] + Z*[M−k]) − ½j·e^(−j2πk/size)·(Z[k] − Z*[M−k]), M = size/2 (the standard real-input FFT;
-    /// Press et al., Numerical Recipes, 3rd ed., §12.3.2).
+    /// Press et al., Numerical Recipes, 3rd ed., §12.3; section number from memory).
     /// </summary>
     internal static double[] RealPower(ReadOnlySpan<double> samples, int size)
     {
