@@ -35,6 +35,21 @@ public sealed record ModeFit(
     double ResidualColourFactor,
     IReadOnlyList<string> Warnings)
 {
+    /// <summary>
+    /// Standard uncertainty of f from coherent tracking error at the mode's own frequency, Hz, already included in
+    /// <see cref="FrequencyHz"/>'s uncertainty (added in quadrature); 0 when the other modal coordinates show none.
+    /// </summary>
+    public double CoherentErrorFrequencyHz { get; init; }
+
+    /// <summary>As <see cref="CoherentErrorFrequencyHz"/>, for σ, 1/s.</summary>
+    public double CoherentErrorDecayRatePerS { get; init; }
+
+    /// <summary>The fit behind these values (final covariance); null when unfitted.</summary>
+    internal SinusoidFit? Source { get; init; }
+
+    /// <summary>True when fitted on the key frames of a compressed video only.</summary>
+    internal bool OnKeyFrames { get; init; }
+
     /// <summary>True when the values can be used (converged, or stopped at the iteration limit).</summary>
     public bool IsUsable => Status is FitStatus.Converged or FitStatus.IterationLimit;
 

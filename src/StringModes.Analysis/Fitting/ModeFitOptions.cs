@@ -40,6 +40,12 @@ public sealed record ModeFitOptions
     /// <summary>Run the split-window decay and frequency-drift checks; default true.</summary>
     public bool CheckDecayShape { get; init; } = true;
 
+    /// <summary>
+    /// Add to each mode's u(f) and u(σ) the coherent tracking error at its own frequency that the other modal
+    /// coordinates show (harmonics of a stronger mode's motion, which a weak mode's fit absorbs unseen); default true.
+    /// </summary>
+    public bool IncludeCoherentError { get; init; } = true;
+
     /// <summary>Run the independent matrix-pencil cross-check; default true.</summary>
     public bool CrossCheck { get; init; } = true;
 

@@ -46,7 +46,8 @@ public static class ModeFitter
         // where the reported values come from the key frames alone: two estimators on the same data.
         var allFrameFits = fits.ToList();
         var allFrameInternals = internals.ToList();
-        if (options.DetectKeyFrames) ApplyKeyFrames(modal, options, fits, internals, warnings);
+        var keyFrames = options.DetectKeyFrames ? ApplyKeyFrames(modal, options, fits, internals, warnings) : null;
+        if (options.IncludeCoherentError) AddCoherentError(modal, fits, keyFrames);
         foreach (var fit in fits) warnings.AddRange(fit.Warnings.Select(w => $"mode {fit.N}: {w}"));
 
         var checks = new List<CrossCheck>();
@@ -196,17 +197,18 @@ public static class ModeFitter
     /// motion below the modes' frequencies, which is harmless here: the fit uses the true frame times and starts
     /// within a small fraction of the alias spacing of the solution. The all-frame values are kept in a note.
     /// </summary>
-    private static void ApplyKeyFrames(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals, List<string> warnings)
+    /// <returns>The key-frame mask when the modes were refitted on key frames (those fits have OnKeyFrames set), else null.</returns>
+    private static bool[]? ApplyKeyFrames(ModalCoordinates modal, ModeFitOptions options, List<ModeFit> fits, List<SinusoidFit?> internals, List<string> warnings)
     {
         var fitted = Enumerable.Range(0, fits.Count).Where(j => fits[j].IsUsable && internals[j] is not null).Select(j => (j, internals[j]!)).ToList();
         var key = KeyFrameStructure.Detect(modal, fitted);
-        if (key is null) return;
+        if (key is null) return null;
         var found = string.Create(System.Globalization.CultureInfo.InvariantCulture,
             $"every {key.Period}th frame has {key.VarianceRatio:F2} times the residual variance of the others ({-key.Score:F1} standard errors): the key frames of a compressed video, between which the codec loses small motions");
         if (key.Count < options.MinimumKeyFrames)
         {
             warnings.Add($"{found}; there are only {key.Count} key frames in the window (at least {options.MinimumKeyFrames} are needed to fit on them alone), so frequencies and decay rates may carry a codec error beyond their uncertainties; a lossless recording or a shorter keyframe interval avoids this");
-            return;
+            return null;
         }
         warnings.Add($"{found}; the modes were fitted on the {key.Count} key frames only");
         foreach (var (j, all) in fitted)
@@ -226,10 +228,55 @@ public static class ModeFitter
             var note = string.Create(System.Globalization.CultureInfo.InvariantCulture,
                 $"fitted on the {key.Count} key frames (every {key.Period}th frame); all frames gave f = {previous.FrequencyHz.Value:G9} Hz and σ = {previous.DecayRatePerS.Value:G5} 1/s");
             var periods = fit.FrequencyHz * (times[^1] - times[0]);
-            fits[j] = Finish(n, [.. times], [.. values], fit, periods, options, [note]);
+            fits[j] = Finish(n, [.. times], [.. values], fit, periods, options, [note]) with { OnKeyFrames = true };
             internals[j] = fit;
         }
+        return key.IsKey;
     }
+
+    /// <summary>
+    /// Adds, per usable mode, the coherent tracking error at its own frequency that the other modal coordinates show
+    /// (see <see cref="CoherentError"/>) to the uncertainties of f and σ, and re-derives the damping measures.
+    /// </summary>
+    private static void AddCoherentError(ModalCoordinates modal, List<ModeFit> fits, bool[]? keyFrames)
+    {
+        if (fits.Count < 2) return;
+        Parallel.For(0, fits.Count, j =>
+        {
+            var fit = fits[j];
+            if (!fit.IsUsable || fit.Source is not { } source) return;
+            var frames = new List<int>(modal.FrameCount);
+            for (var k = 0; k < modal.FrameCount; k++)
+                if (modal.ValidFrame[k] && (!fit.OnKeyFrames || keyFrames is null || keyFrames[k])) frames.Add(k);
+            var times = frames.Select(k => modal.TimesS[k]).ToArray();
+            var probes = new List<double[]>(fits.Count - 1);
+            for (var m = 0; m < fits.Count; m++)
+            {
+                if (m == j) continue;
+                var own = fits[m].IsUsable ? fits[m].Source : null;
+                var r = new double[frames.Count];
+                for (var i = 0; i < frames.Count; i++)
+                    r[i] = modal.AmplitudeM[frames[i], m] - (own is null ? 0 : CoherentError.Model(own, times[i]));
+                probes.Add(r);
+            }
+            var excess = CoherentError.Estimate(times, source, fit.ResidualRmsM, probes);
+            if (excess is null || (excess.FrequencyVariance <= 0 && excess.DecayVariance <= 0)) return;
+            var cov = (double[,])source.Covariance.Clone();
+            cov[0, 0] += excess.FrequencyVariance;
+            cov[1, 1] += excess.DecayVariance;
+            var warnings = fit.Warnings.Where(w => !w.StartsWith(NoDecayPrefix, StringComparison.Ordinal) && !w.StartsWith(UnresolvedDecayPrefix, StringComparison.Ordinal)).ToList();
+            warnings.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"the other {excess.Probes} modal coordinates carry a coherent component at this mode's frequency ({1 + Math.Max(excess.FrequencyRatio, excess.DecayRatio):G3} times their noise expectation): tracking error that repeats with the string's motion, which this mode's fit absorbs unseen; u(f) was widened from {fit.FrequencyHz.StandardUncertainty:G3} to {Math.Sqrt(cov[0, 0]):G3} Hz and u(σ) from {fit.DecayRatePerS.StandardUncertainty:G3} to {Math.Sqrt(cov[1, 1]):G3} 1/s"));
+            fits[j] = Derive(fit.N, source with { Covariance = cov }, warnings) with
+            {
+                OnKeyFrames = fit.OnKeyFrames,
+                CoherentErrorFrequencyHz = Math.Sqrt(excess.FrequencyVariance),
+                CoherentErrorDecayRatePerS = Math.Sqrt(excess.DecayVariance),
+            };
+        });
+    }
+
+    private const string NoDecayPrefix = "the amplitude does not decay ", UnresolvedDecayPrefix = "the decay rate is not resolved ";
 
     private static ModeFit Derive(int n, SinusoidFit fit, List<string> warnings)
     {
@@ -248,15 +295,15 @@ public static class ModeFitter
         else
         {
             warnings.Add(s <= 0
-                ? $"the amplitude does not decay (σ = {s:G3} ± {uSigma:G2} 1/s); Q and T60 are not given"
-                : $"the decay rate is not resolved (σ = {s:G3} ± {uSigma:G2} 1/s); Q and T60 are not given");
+                ? $"{NoDecayPrefix}(σ = {s:G3} ± {uSigma:G2} 1/s); Q and T60 are not given"
+                : $"{UnresolvedDecayPrefix}(σ = {s:G3} ± {uSigma:G2} 1/s); Q and T60 are not given");
         }
         return new ModeFit(n,
             new Measured(f, Math.Sqrt(fit.Covariance[0, 0])),
             new Measured(s, uSigma),
             new Measured(fit.AmplitudeM, Math.Sqrt(fit.Covariance[2, 2])),
             new Measured(fit.PhaseRad, Math.Sqrt(fit.Covariance[3, 3])),
-            zeta, q, t60, decrement, fit.Status, fit.ResidualRmsM, fit.ColourFactor, warnings);
+            zeta, q, t60, decrement, fit.Status, fit.ResidualRmsM, fit.ColourFactor, warnings) { Source = fit };
     }
 
     /// <summary>First-order propagation through g(f, σ) with central-difference partial derivatives.</summary>

@@ -70,6 +70,11 @@ public static class ResultsJson
                 MeasuredValue(w, "phase_rad", m.PhaseRad);
                 MeasuredValue(w, "harmonic_ratio", ratios.TryGetValue(m.N, out var r) ? r : null);
                 Number(w, "residual_rms_m", m.ResidualRmsM);
+                // Already inside the uncertainties above (in quadrature); listed so the budget can be read.
+                w.WriteStartObject("coherent_error_uncertainty");
+                Number(w, "frequency_hz", m.CoherentErrorFrequencyHz);
+                Number(w, "decay_rate_per_s", m.CoherentErrorDecayRatePerS);
+                w.WriteEndObject();
                 var check = result.Fits.CrossChecks.FirstOrDefault(c => c.N == m.N);
                 if (check is not null)
                 {
