@@ -85,7 +85,7 @@ static void PipelineMonteCarlo(int trials)
     for (var fr = 0; fr < frames; fr++) for (var i = 0; i < marks; i++) clean[fr, i] = motion.Displacement(positions[i], times[fr]);
     var modalNoise = noise * Math.Sqrt(2.0 / (marks + 1));
     var bounds = motion.Modes.Select(m => CramerRaoBound.DampedSinusoid(times, m.FrequencyHz, m.DecayRatePerS, m.AmplitudeM, m.PhaseRad, modalNoise)).ToArray();
-    var ef = new double[4]; var es = new double[4]; var cf = new int[4]; var cs = new int[4];
+    var ef = new double[4]; var es = new double[4]; var cf = new int[4]; var cs = new int[4]; var uf = new double[4]; var us = new double[4];
     var random = new Random(4242);
     var options = new ModalAnalysisOptions { Fitting = new ModeFitOptions { CrossCheck = false, CheckDecayShape = false } };
     for (var k = 0; k < trials; k++)
@@ -97,14 +97,14 @@ static void PipelineMonteCarlo(int trials)
         {
             var fit = result.Fits.Modes[j]; var truth = motion.Modes[j];
             var df = fit.FrequencyHz.Value - truth.FrequencyHz; var ds = fit.DecayRatePerS.Value - truth.DecayRatePerS;
-            ef[j] += df * df; es[j] += ds * ds;
+            ef[j] += df * df; es[j] += ds * ds; uf[j] += fit.FrequencyHz.StandardUncertainty; us[j] += fit.DecayRatePerS.StandardUncertainty;
             if (Math.Abs(df) <= fit.FrequencyHz.StandardUncertainty) cf[j]++;
             if (Math.Abs(ds) <= fit.DecayRatePerS.StandardUncertainty) cs[j]++;
         }
     }
     Console.WriteLine($"Pipeline Monte Carlo ({trials} trials): 0.65 m, 82.4 Hz, B 2e-4, 7 marks, 1000 fps, 2 s, mark noise 1 um");
     for (var j = 0; j < 4; j++)
-        Console.WriteLine($"  mode {j + 1}: f RMS/CRLB {Math.Sqrt(ef[j] / trials) / bounds[j].FrequencyHz:F2} cover {cf[j] / (double)trials:F3} | σ RMS/CRLB {Math.Sqrt(es[j] / trials) / bounds[j].DecayRatePerS:F2} cover {cs[j] / (double)trials:F3}");
+        Console.WriteLine($"  mode {j + 1}: f RMS/CRLB {Math.Sqrt(ef[j] / trials) / bounds[j].FrequencyHz:F2} mean u/CRLB {uf[j] / trials / bounds[j].FrequencyHz:F2} cover {cf[j] / (double)trials:F3} | σ RMS/CRLB {Math.Sqrt(es[j] / trials) / bounds[j].DecayRatePerS:F2} mean u/CRLB {us[j] / trials / bounds[j].DecayRatePerS:F2} cover {cs[j] / (double)trials:F3}");
 }
 
 static void PencilMonteCarlo(string name, double fps, double duration, double f, double sigma, double amp, double noise, int trials)
