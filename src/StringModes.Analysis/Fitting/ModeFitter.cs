@@ -241,19 +241,21 @@ public static class ModeFitter
     private static void AddCoherentError(ModalCoordinates modal, List<ModeFit> fits, bool[]? keyFrames)
     {
         if (fits.Count < 2) return;
+        // Each mode reads the fits as they were before any widening (a snapshot), and writes only its own slot.
+        var before = fits.ToArray();
         Parallel.For(0, fits.Count, j =>
         {
-            var fit = fits[j];
+            var fit = before[j];
             if (!fit.IsUsable || fit.Source is not { } source) return;
             var frames = new List<int>(modal.FrameCount);
             for (var k = 0; k < modal.FrameCount; k++)
                 if (modal.ValidFrame[k] && (!fit.OnKeyFrames || keyFrames is null || keyFrames[k])) frames.Add(k);
             var times = frames.Select(k => modal.TimesS[k]).ToArray();
-            var probes = new List<double[]>(fits.Count - 1);
-            for (var m = 0; m < fits.Count; m++)
+            var probes = new List<double[]>(before.Length - 1);
+            for (var m = 0; m < before.Length; m++)
             {
                 if (m == j) continue;
-                var own = fits[m].IsUsable ? fits[m].Source : null;
+                var own = before[m].IsUsable ? before[m].Source : null;
                 var r = new double[frames.Count];
                 for (var i = 0; i < frames.Count; i++)
                     r[i] = modal.AmplitudeM[frames[i], m] - (own is null ? 0 : CoherentError.Model(own, times[i]));
