@@ -267,8 +267,12 @@ public static class ModeFitter
             cov[0, 0] += excess.FrequencyVariance;
             cov[1, 1] += excess.DecayVariance;
             var warnings = fit.Warnings.Where(w => !w.StartsWith(NoDecayPrefix, StringComparison.Ordinal) && !w.StartsWith(UnresolvedDecayPrefix, StringComparison.Ordinal)).ToList();
-            warnings.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"the other {excess.Probes} modal coordinates carry a coherent component at this mode's frequency ({1 + Math.Max(excess.FrequencyRatio, excess.DecayRatio):G3} times their noise expectation): tracking error that repeats with the string's motion, which this mode's fit absorbs unseen; u(f) was widened from {fit.FrequencyHz.StandardUncertainty:G3} to {Math.Sqrt(cov[0, 0]):G3} Hz and u(σ) from {fit.DecayRatePerS.StandardUncertainty:G3} to {Math.Sqrt(cov[1, 1]):G3} 1/s"));
+            var inv = System.Globalization.CultureInfo.InvariantCulture;
+            var widened = new List<string>(2);
+            if (excess.FrequencyVariance > 0) widened.Add(string.Create(inv, $"u(f) from {fit.FrequencyHz.StandardUncertainty:G3} to {Math.Sqrt(cov[0, 0]):G3} Hz"));
+            if (excess.DecayVariance > 0) widened.Add(string.Create(inv, $"u(σ) from {fit.DecayRatePerS.StandardUncertainty:G3} to {Math.Sqrt(cov[1, 1]):G3} 1/s"));
+            warnings.Add(string.Create(inv,
+                $"the other {excess.Probes} modal coordinates carry a coherent component at this mode's frequency ({1 + Math.Max(excess.FrequencyRatio, excess.DecayRatio):G3} times their noise expectation): tracking or codec error that repeats with the string's motion, which this mode's fit absorbs unseen; widened {string.Join(" and ", widened)}"));
             fits[j] = Derive(fit.N, source with { Covariance = cov }, warnings) with
             {
                 OnKeyFrames = fit.OnKeyFrames,
