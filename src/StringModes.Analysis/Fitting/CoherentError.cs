@@ -33,10 +33,6 @@ internal static class CoherentError
     /// <summary>Variance added to f and σ (0 when not significant) and the excess ratios Q/K − 1.</summary>
     public sealed record Excess(double FrequencyVariance, double DecayVariance, double FrequencyRatio, double DecayRatio, int Probes);
 
-    /// <summary>Model value A·e^(−σt)·cos(2πft + φ) + c of a fit at time <paramref name="t"/>.</summary>
-    public static double Model(SinusoidFit fit, double t)
-        => fit.AmplitudeM * Math.Exp(-fit.DecayRatePerS * t) * Math.Cos(2 * Math.PI * fit.FrequencyHz * t + fit.PhaseRad) + fit.OffsetM;
-
     /// <param name="times">Sample times of mode n's fit.</param>
     /// <param name="fit">Mode n's fit at those times.</param>
     /// <param name="ownNoiseRms">RMS of mode n's own residual, s_n.</param>
@@ -61,7 +57,7 @@ internal static class CoherentError
             row[3] = g * sin;
             row[4] = 1;
         }
-        // Columns scaled to unit norm before the 5 × 5 inverse.
+        // Columns scaled to unit norm (in place) before the 5 × 5 inverse.
         var norm = new double[ParameterCount];
         for (var i = 0; i < n; i++)
             for (var k = 0; k < ParameterCount; k++) norm[k] += jac[i * ParameterCount + k] * jac[i * ParameterCount + k];
@@ -70,12 +66,14 @@ internal static class CoherentError
             norm[k] = Math.Sqrt(norm[k]);
             if (!(norm[k] > 0)) return null;
         }
+        for (var i = 0; i < n; i++)
+            for (var k = 0; k < ParameterCount; k++) jac[i * ParameterCount + k] /= norm[k];
         var gram = Matrix<double>.Build.Dense(ParameterCount, ParameterCount);
         for (var i = 0; i < n; i++)
         {
             var row = jac.AsSpan(i * ParameterCount, ParameterCount);
             for (var j = 0; j < ParameterCount; j++)
-                for (var k = j; k < ParameterCount; k++) gram[j, k] += row[j] / norm[j] * (row[k] / norm[k]);
+                for (var k = j; k < ParameterCount; k++) gram[j, k] += row[j] * row[k];
         }
         for (var j = 0; j < ParameterCount; j++)
             for (var k = 0; k < j; k++) gram[j, k] = gram[k, j];
@@ -100,7 +98,7 @@ internal static class CoherentError
             for (var i = 0; i < n; i++)
             {
                 var row = jac.AsSpan(i * ParameterCount, ParameterCount);
-                for (var k = 0; k < ParameterCount; k++) projected[k] += row[k] / norm[k] * r[i];
+                for (var k = 0; k < ParameterCount; k++) projected[k] += row[k] * r[i];
             }
             double df = 0, ds = 0;
             for (var k = 0; k < ParameterCount; k++)

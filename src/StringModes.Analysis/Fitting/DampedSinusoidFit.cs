@@ -22,6 +22,10 @@ internal sealed record SinusoidFit(
     public double DecayRateUncertainty => Math.Sqrt(Covariance[1, 1]);
     public bool Usable => Status is FitStatus.Converged or FitStatus.IterationLimit;
 
+    /// <summary>Model value A·e^(−σt)·cos(2πft + φ) + c at time <paramref name="timeS"/>.</summary>
+    public double ValueAt(double timeS)
+        => AmplitudeM * Math.Exp(-DecayRatePerS * timeS) * Math.Cos(2 * Math.PI * FrequencyHz * timeS + PhaseRad) + OffsetM;
+
     public static SinusoidFit Failed(FitStatus status) => new(status, 0, 0, 0, 0, 0, new double[4, 4], 0, 1, 0);
 }
 

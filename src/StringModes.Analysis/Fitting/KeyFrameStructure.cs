@@ -65,8 +65,7 @@ internal static class KeyFrameStructure
             for (var i = 0; i < n; i++)
             {
                 var t = modal.TimesS[frames[i]];
-                var model = fit.AmplitudeM * Math.Exp(-fit.DecayRatePerS * t) * Math.Cos(2 * Math.PI * fit.FrequencyHz * t + fit.PhaseRad) + fit.OffsetM;
-                var r = modal.AmplitudeM[frames[i], j] - model;
+                var r = modal.AmplitudeM[frames[i], j] - fit.ValueAt(t);
                 squares[i] = r * r;
                 sum += r * r;
             }

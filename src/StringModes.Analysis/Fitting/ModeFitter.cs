@@ -258,7 +258,7 @@ public static class ModeFitter
                 var own = before[m].IsUsable ? before[m].Source : null;
                 var r = new double[frames.Count];
                 for (var i = 0; i < frames.Count; i++)
-                    r[i] = modal.AmplitudeM[frames[i], m] - (own is null ? 0 : CoherentError.Model(own, times[i]));
+                    r[i] = modal.AmplitudeM[frames[i], m] - (own?.ValueAt(times[i]) ?? 0);
                 probes.Add(r);
             }
             var excess = CoherentError.Estimate(times, source, fit.ResidualRmsM, probes);
@@ -562,7 +562,7 @@ public static class ModeFitter
             {
                 var m = Array.IndexOf(used, j);
                 var r = raw[j]!;
-                return StringMotion.ModalCoordinate(new ModeComponent(1, r.FrequencyHz, r.DecayRatePerS, r.AmplitudeM, r.PhaseRad), times[i]) + r.OffsetM + noise[m][i];
+                return r.ValueAt(times[i]) + noise[m][i];
             }));
             drawn[b] = d;
         });
