@@ -11,7 +11,9 @@ namespace StringModes.Analysis.Fitting;
 /// zero-padded spectrum, a decay seed from the log-envelope of short segments, then Levenberg–Marquardt on all
 /// parameters at the true (possibly non-uniform) sample times. Derived damping measures use <see cref="Damping"/> with
 /// first-order propagation of the (f, σ) covariance. Consistency checks — split-window decay rates and frequencies,
-/// and an independent multi-channel matrix pencil — add warnings; they never change the reported values.
+/// and an independent multi-channel matrix pencil — add warnings; they never change the reported values. Two steps
+/// widen uncertainties without moving values: the split-window Birge ratio on σ, and the coherent tracking error at
+/// a mode's own frequency seen in the other coordinates (<see cref="CoherentError"/>).
 /// </summary>
 public static class ModeFitter
 {
